@@ -1,0 +1,223 @@
+// dovetailor fit: the clearance of a male/female pair, and the reading to aim for.
+
+#include <cmath>
+#include <optional>
+
+#include <fmt/format.h>
+#include <nlohmann/json.hpp>
+
+#include <dovetailor/fit.hpp>
+#include <dovetailor/job_reader.hpp>
+
+#include "commands.hpp"
+#include "file_io.hpp"
+#include "flags.hpp"
+#include "show.hpp"
+
+namespace dovetailor::cli {
+namespace {
+
+struct FitOptions {
+  std::vector<std::string> job_files;
+  std::string units = "inch";
+  std::string sides = "both";
+  double angle = NAN;
+  double female_reading = NAN;
+  double female_pin = NAN;
+  double female_depth = NAN;
+  double male_reading = NAN;
+  double male_pin = NAN;
+  double clearance = NAN;
+  bool json = false;
+};
+
+constexpr const char* convention =
+    "Assembly: the female's top face rests on the male's shelf. Lateral clearance is\n"
+    "the total side play of both flanks together; positive is clearance, negative\n"
+    "interference. Normal clearance is measured square to the flanks.";
+
+struct FitResult {
+  Units units = Units::Inch;
+  double angle = 0;
+  int angled_flanks = 2;
+  std::optional<MeasuredPart> female;  // reading known
+  std::optional<MeasuredPart> male;
+  std::optional<Fit> fit;
+  std::optional<double> clearance;      // wanted
+  std::optional<double> target_male;    // reading to aim for on the male
+  std::optional<double> target_female;  // reading to aim for on the female
+  double female_pin = 0;
+  double female_depth = 0;
+  double male_pin = 0;
+};
+
+MeasuredPart part_from_job(const Job& job) {
+  const auto section = section_of(job.dovetail);
+  if (!job.gauge)
+    throw InputError("needs [gauge] pin_diameter to state its reading", {job.source},
+                     "gauge.pin_diameter");
+  return {job.dovetail.type, reading_of(section, job.gauge->pin_diameter).value,
+          job.gauge->pin_diameter, job.dovetail.depth};
+}
+
+FitResult fit_from_jobs(const FitOptions& o) {
+  if (o.job_files.size() != 2)
+    throw InputError("give two job files, one male and one female, or describe them by flags",
+                     {"flags"}, "job");
+  Job a = read_job(read_text_file(o.job_files[0]), o.job_files[0]);
+  Job b = read_job(read_text_file(o.job_files[1]), o.job_files[1]);
+  if (a.dovetail.type == b.dovetail.type)
+    throw InputError(fmt::format("both jobs are {}; a fit needs one male and one female",
+                                 type_name(a.dovetail.type)),
+                     {b.source}, "dovetail.type");
+  const Job& female = a.dovetail.type == DovetailType::Female ? a : b;
+  const Job& male = a.dovetail.type == DovetailType::Male ? a : b;
+  if (std::abs(female.dovetail.angle - male.dovetail.angle) > 0.1)
+    throw InputError(fmt::format("the angles differ ({:g} and {:g} deg): the flanks would not "
+                                 "bear",
+                                 female.dovetail.angle, male.dovetail.angle),
+                     {male.source}, "dovetail.angle");
+  if (female.dovetail.sides != male.dovetail.sides)
+    throw InputError("the two parts have different angled flanks (dovetail.sides)", {male.source},
+                     "dovetail.sides");
+  if (female.units != male.units)
+    throw InputError("the two jobs use different units; the report uses the female's",
+                     {male.source}, "units");
+  FitResult r;
+  r.units = female.units;
+  r.angle = female.dovetail.angle;
+  r.angled_flanks = female.dovetail.sides == AngledSides::Both ? 2 : 1;
+  r.fit = fit_of(section_of(female.dovetail), section_of(male.dovetail));
+  if (female.gauge) r.female = part_from_job(female);
+  if (male.gauge) r.male = part_from_job(male);
+  r.female_pin = female.gauge ? female.gauge->pin_diameter : 0;
+  r.male_pin = male.gauge ? male.gauge->pin_diameter : 0;
+  r.female_depth = female.dovetail.depth;
+  if (!std::isnan(o.clearance)) r.clearance = to_mm(o.clearance, r.units);
+  return r;
+}
+
+FitResult fit_from_flags(const FitOptions& o) {
+  FitResult r;
+  r.units = parse_units(o.units);
+  r.angle = require_flag(o.angle, "--angle", 0, 90);
+  r.angled_flanks = parse_sides(o.sides) == AngledSides::Both ? 2 : 1;
+  const auto len = [&](double v, const char* flag) {
+    return to_mm(require_flag(v, flag, 0, 1e4), r.units);
+  };
+  r.female_pin = len(o.female_pin, "--female-pin");
+  r.female_depth = len(o.female_depth, "--female-depth");
+  r.male_pin = len(o.male_pin, "--male-pin");
+  if (!std::isnan(o.female_reading))
+    r.female = MeasuredPart{DovetailType::Female, to_mm(o.female_reading, r.units), r.female_pin,
+                            r.female_depth};
+  if (!std::isnan(o.male_reading))
+    r.male = MeasuredPart{DovetailType::Male, to_mm(o.male_reading, r.units), r.male_pin, 0};
+  if (!std::isnan(o.clearance)) r.clearance = to_mm(o.clearance, r.units);
+  if (!r.female && !r.male)
+    throw InputError("give --female-reading, --male-reading or both", {"flags"}, "--*-reading");
+  if ((!r.female || !r.male) && !r.clearance)
+    throw InputError("with one reading only, give --clearance to get the other part's target",
+                     {"flags"}, "--clearance");
+  if (r.female && r.male) r.fit = fit_of(*r.female, *r.male, r.angle, r.angled_flanks);
+  return r;
+}
+
+void add_targets(FitResult& r) {
+  if (!r.clearance) return;
+  const MeasuredPart male_target{DovetailType::Male, 0, r.male_pin, 0};
+  const MeasuredPart female_target{DovetailType::Female, 0, r.female_pin, r.female_depth};
+  if (r.female && r.male_pin > 0)
+    r.target_male = reading_for_clearance(*r.female, male_target, r.angle, r.angled_flanks,
+                                          *r.clearance);
+  if (r.male && r.female_pin > 0)
+    r.target_female = reading_for_clearance(*r.male, female_target, r.angle, r.angled_flanks,
+                                            *r.clearance);
+}
+
+void print_text(const FitResult& r) {
+  const Units u = r.units;
+  fmt::print("Fit of a dovetail pair, {:g} deg, {} angled. All lengths in {}.\n\n", r.angle,
+             r.angled_flanks == 2 ? "both flanks" : "one flank", unit_name(u));
+  const auto row = [](std::string_view label, const std::string& value) {
+    fmt::print("  {:<34}{}\n", label, value);
+  };
+  if (r.female)
+    row("Female reading between pins",
+        fmt::format("{} ({} pins, depth {})", length(r.female->reading, u), number(r.female_pin, u),
+                    length(r.female_depth, u)));
+  if (r.male)
+    row("Male reading over pins",
+        fmt::format("{} ({} pins)", length(r.male->reading, u), number(r.male_pin, u)));
+  if (r.fit) {
+    row("Lateral clearance", signed_length(r.fit->lateral_clearance, u) +
+                                 (r.fit->lateral_clearance < 0 ? "  INTERFERENCE" : ""));
+    row("  per flank", signed_length(r.fit->lateral_clearance / r.angled_flanks, u));
+    row("Normal clearance", signed_length(r.fit->normal_clearance, u));
+  }
+  if (r.clearance) {
+    fmt::print("\n");
+    row("Wanted lateral clearance", signed_length(*r.clearance, u));
+    if (r.target_male)
+      row("Aim the male over pins at", fmt::format("{} ({} pins)", length(*r.target_male, u),
+                                                   number(r.male_pin, u)));
+    if (r.target_female)
+      row("Aim the female between pins at", fmt::format("{} ({} pins)",
+                                                        length(*r.target_female, u),
+                                                        number(r.female_pin, u)));
+  }
+  fmt::print("\n{}\n", convention);
+}
+
+void print_json(const FitResult& r) {
+  const Units u = r.units;
+  nlohmann::json j;
+  j["units"] = unit_name(u);
+  j["angle"] = r.angle;
+  j["convention"] = "female top face on male shelf; lateral clearance is the total of both flanks";
+  if (r.female) j["female_reading"] = json_length(r.female->reading, u);
+  if (r.male) j["male_reading"] = json_length(r.male->reading, u);
+  if (r.fit) {
+    j["lateral_clearance"] = json_length(r.fit->lateral_clearance, u);
+    j["normal_clearance"] = json_length(r.fit->normal_clearance, u);
+  }
+  if (r.clearance) j["wanted_clearance"] = json_length(*r.clearance, u);
+  if (r.target_male) j["target_male_reading"] = json_length(*r.target_male, u);
+  if (r.target_female) j["target_female_reading"] = json_length(*r.target_female, u);
+  fmt::print("{}\n", j.dump(2));
+}
+
+void run_fit(const FitOptions& o) {
+  FitResult r = o.job_files.empty() ? fit_from_flags(o) : fit_from_jobs(o);
+  add_targets(r);
+  if (o.json) {
+    print_json(r);
+  } else {
+    print_text(r);
+  }
+}
+
+}  // namespace
+
+void setup_fit(CLI::App& app) {
+  auto o = std::make_shared<FitOptions>();
+  auto* cmd = app.add_subcommand(
+      "fit", "Clearance of a male/female pair, from two job files or from pin readings.");
+  cmd->add_option("jobs", o->job_files, "Two job files, one male and one female (either order)");
+  cmd->add_option("--units", o->units, "inch or mm (flags mode)")
+      ->check(CLI::IsMember({"inch", "mm"}));
+  cmd->add_option("--angle", o->angle, "Flank angle, degrees");
+  cmd->add_option("--sides", o->sides, "Angled flanks: both, left or right")
+      ->check(CLI::IsMember({"both", "left", "right"}));
+  cmd->add_option("--female-reading", o->female_reading, "Female reading between pins");
+  cmd->add_option("--female-pin", o->female_pin, "Pin diameter used on the female");
+  cmd->add_option("--female-depth", o->female_depth, "Female depth, floor to mouth");
+  cmd->add_option("--male-reading", o->male_reading, "Male reading over pins");
+  cmd->add_option("--male-pin", o->male_pin, "Pin diameter used on the male");
+  cmd->add_option("--clearance", o->clearance,
+                  "Wanted lateral clearance; prints the reading to aim for");
+  cmd->add_flag("--json", o->json, "Print JSON instead of text");
+  cmd->callback([o] { run_fit(*o); });
+}
+
+}  // namespace dovetailor::cli

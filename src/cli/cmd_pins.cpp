@@ -1,0 +1,232 @@
+// dovetailor pins: the widths of a dovetail and its pin reading, both ways.
+
+#include <cmath>
+#include <iostream>
+#include <optional>
+
+#include <fmt/format.h>
+#include <nlohmann/json.hpp>
+
+#include <dovetailor/dovetail_section.hpp>
+#include <dovetailor/job_reader.hpp>
+#include <dovetailor/pin_gauge.hpp>
+
+#include "commands.hpp"
+#include "file_io.hpp"
+#include "flags.hpp"
+#include "show.hpp"
+
+namespace dovetailor::cli {
+namespace {
+
+struct PinsOptions {
+  std::string job_file;
+  std::string type;
+  std::string units = "inch";
+  std::string width_at = "bottom";
+  std::string sides = "both";
+  double angle = NAN;
+  double depth = NAN;
+  double pin = NAN;
+  double width = NAN;
+  double reading = NAN;
+  double chamfer = 0;
+  double corner_radius = 0;
+  bool json = false;
+};
+
+// What the report is about, whichever way it was described.
+struct PinsCase {
+  std::string title;
+  Units units = Units::Inch;
+  DovetailSection section;
+  Tolerance tolerance;
+  double pin = 0;
+  double corner_radius = 0;
+  std::optional<Job> job;
+};
+
+std::string method_text(const PinReading& r) {
+  switch (r.method) {
+    case ReadingMethod::OverPins: return "Reading over 2 pins";
+    case ReadingMethod::BetweenPins: return "Reading between 2 pins";
+    case ReadingMethod::SquareSideToPin: return "Square side to 1 pin";
+  }
+  return "Reading";
+}
+
+std::string method_key(const PinReading& r) {
+  switch (r.method) {
+    case ReadingMethod::OverPins: return "over-pins";
+    case ReadingMethod::BetweenPins: return "between-pins";
+    case ReadingMethod::SquareSideToPin: return "square-side-to-pin";
+  }
+  return "";
+}
+
+PinsCase case_from_job(const PinsOptions& o) {
+  PinsCase c;
+  Job job = read_job(read_text_file(o.job_file), o.job_file);
+  c.units = job.units;
+  c.title = job.part.name.empty() ? o.job_file : job.part.name;
+  c.section = section_of(job.dovetail);
+  c.tolerance = job.dovetail.tolerance;
+  if (!std::isnan(o.pin)) {
+    c.pin = to_mm(o.pin, job.units);
+  } else if (job.gauge) {
+    c.pin = job.gauge->pin_diameter;
+  } else {
+    throw InputError("no pin size: add [gauge] pin_diameter to the job or give --pin",
+                     {o.job_file}, "gauge.pin_diameter");
+  }
+  if (const Tool* cutter = first_tool(job, ToolKind::Dovetail)) c.corner_radius = cutter->corner_radius;
+  c.job = std::move(job);
+  return c;
+}
+
+PinsCase case_from_flags(const PinsOptions& o) {
+  PinsCase c;
+  c.units = parse_units(o.units);
+  DovetailSpec spec;
+  spec.type = parse_type(o.type, "--type");
+  spec.angle = require_flag(o.angle, "--angle", 30, 75);
+  spec.depth = to_mm(require_flag(o.depth, "--depth", 0, 1e4), c.units);
+  spec.sides = parse_sides(o.sides);
+  spec.chamfer = to_mm(o.chamfer, c.units);
+  c.pin = to_mm(require_flag(o.pin, "--pin", 0, 1e4), c.units);
+  c.corner_radius = to_mm(o.corner_radius, c.units);
+  const int angled = spec.sides == AngledSides::Both ? 2 : 1;
+  if (std::isnan(o.width) == std::isnan(o.reading))
+    throw InputError("give either --width (with --width-at) or --reading, not both", {"flags"},
+                     "--width/--reading");
+  if (!std::isnan(o.width)) {
+    spec.width = to_mm(require_flag(o.width, "--width", 0, 1e4), c.units);
+    spec.width_at = o.width_at == "top" ? WidthAt::Top : WidthAt::Bottom;
+  } else {
+    spec.width = width_for_reading(spec.type, angled, to_mm(o.reading, c.units), c.pin, spec.angle);
+    spec.width_at = WidthAt::Bottom;
+  }
+  const double bottom = design_width_bottom(spec);
+  const double top = width_top_from_bottom(spec.type, bottom, spec.depth, spec.angle, angled);
+  if (bottom <= 0 || top <= 0)
+    throw InputError("these sizes make the flanks cross (a width at or below zero)", {"flags"},
+                     std::isnan(o.reading) ? "--width" : "--reading");
+  if (spec.chamfer >= spec.depth)
+    throw InputError("must be smaller than the depth", {"flags"}, "--chamfer");
+  c.section = section_of(spec);
+  c.tolerance = default_tolerance(spec.type, c.units);
+  c.title = fmt::format("{} dovetail", type_name(spec.type));
+  return c;
+}
+
+void print_text(const PinsCase& c) {
+  const auto& s = c.section;
+  const Units u = c.units;
+  const PinReading r = reading_of(s, c.pin);
+  const bool female = s.type == DovetailType::Female;
+  fmt::print("{} ({} dovetail, {:g} deg, {} angled)\n", c.title, type_name(s.type), s.angle,
+             s.angled_flanks() == 2 ? "both flanks" : "one flank");
+  fmt::print("All lengths in {}.\n\n", unit_name(u));
+  const auto row = [](std::string_view label, const std::string& value) {
+    fmt::print("  {:<34}{}\n", label, value);
+  };
+  row(female ? "Width at base plane (floor)" : "Width at base plane (root)",
+      length(s.width_bottom(), u));
+  row(female ? "Width at top plane (mouth)" : "Width at top plane (top face)",
+      length(s.width_top(), u));
+  row("Depth", length(s.depth, u));
+  if (s.gib_side)
+    row(fmt::format("Gib allowance ({} flank)", *s.gib_side == Side::Left ? "left" : "right"),
+        length(s.gib_allowance, u) + " (included above)");
+  fmt::print("\n");
+  row(method_text(r), fmt::format("{}   with {} pin{}", length(r.value, u), length(c.pin, u),
+                                  r.pins == 1 ? "" : "s"));
+  row("  good from", fmt::format("{} to {}", number(r.value + c.tolerance.lower, u),
+                                 length(r.value + c.tolerance.upper, u)));
+  const double h = contact_height(c.pin, s.angle);
+  row("Pin touches the flank at", fmt::format("{} above the base plane ({:.0f} % of the flank)",
+                                              length(h, u), 100 * h / (s.depth - s.chamfer)));
+  row("Pin constant 1 + cot(a/2)", fmt::format("{:.7f}", pin_constant(s.angle)));
+  if (c.job && !female) {
+    for (Side side : {Side::Left, Side::Right}) {
+      if (!s.flank(side).angled) continue;
+      const bool left = side == Side::Left;
+      const double face = left ? stock_right_x(*c.job) : stock_left_x(*c.job);
+      row(fmt::format("{} stock face to {} pin", left ? "Right" : "Left", left ? "left" : "right"),
+          length(reference_reading(s, side, c.pin, face), u));
+    }
+  }
+  const auto problems = pin_problems(s, c.pin, c.corner_radius, u);
+  for (const auto& p : problems) fmt::print("\n  WARNING: {}\n", p);
+  const auto advice = advise_pins(s, c.corner_radius, u);
+  fmt::print("\nCommon pin sizes that fit (* = contact in the middle third of the flank):\n");
+  if (advice.empty()) fmt::print("  none: the flank is too short for the common sizes\n");
+  for (const auto& a : advice)
+    fmt::print("  {} {:>10}   touches at {}\n", a.middle_third ? '*' : ' ', length(a.diameter, u),
+               length(a.contact_height, u));
+}
+
+void print_json(const PinsCase& c) {
+  const auto& s = c.section;
+  const Units u = c.units;
+  const PinReading r = reading_of(s, c.pin);
+  nlohmann::json j;
+  j["units"] = unit_name(u);
+  j["type"] = type_name(s.type);
+  j["angle"] = s.angle;
+  j["method"] = method_key(r);
+  j["pins"] = r.pins;
+  j["pin_diameter"] = json_length(c.pin, u);
+  j["reading"] = json_length(r.value, u);
+  j["reading_min"] = json_length(r.value + c.tolerance.lower, u);
+  j["reading_max"] = json_length(r.value + c.tolerance.upper, u);
+  j["width_bottom"] = json_length(s.width_bottom(), u);
+  j["width_top"] = json_length(s.width_top(), u);
+  j["depth"] = json_length(s.depth, u);
+  j["gib_allowance"] = json_length(s.gib_allowance, u);
+  j["contact_height"] = json_length(contact_height(c.pin, s.angle), u);
+  j["pin_constant"] = pin_constant(s.angle);
+  j["problems"] = pin_problems(s, c.pin, c.corner_radius, u);
+  auto& advice = j["pin_advice"] = nlohmann::json::array();
+  for (const auto& a : advise_pins(s, c.corner_radius, u))
+    advice.push_back({{"diameter", json_length(a.diameter, u)},
+                      {"contact_height", json_length(a.contact_height, u)},
+                      {"middle_third", a.middle_third}});
+  fmt::print("{}\n", j.dump(2));
+}
+
+void run_pins(const PinsOptions& o) {
+  const PinsCase c = o.job_file.empty() ? case_from_flags(o) : case_from_job(o);
+  if (o.json) {
+    print_json(c);
+  } else {
+    print_text(c);
+  }
+}
+
+}  // namespace
+
+void setup_pins(CLI::App& app) {
+  auto o = std::make_shared<PinsOptions>();
+  auto* cmd = app.add_subcommand(
+      "pins", "Widths and the pin reading of a dovetail, from a job file or from flags.");
+  cmd->add_option("job", o->job_file, "Job file (TOML); omit to describe the dovetail by flags");
+  cmd->add_option("--type", o->type, "male or female")->check(CLI::IsMember({"male", "female"}));
+  cmd->add_option("--units", o->units, "inch or mm (flags mode)")
+      ->check(CLI::IsMember({"inch", "mm"}));
+  cmd->add_option("--angle", o->angle, "Flank angle, degrees (30 to 75)");
+  cmd->add_option("--depth", o->depth, "Depth, base plane to top plane");
+  cmd->add_option("--width", o->width, "Width at --width-at");
+  cmd->add_option("--width-at", o->width_at, "bottom (base plane) or top")
+      ->check(CLI::IsMember({"bottom", "top"}));
+  cmd->add_option("--reading", o->reading, "A pin reading, instead of --width");
+  cmd->add_option("--pin", o->pin, "Pin diameter (overrides the job's gauge)");
+  cmd->add_option("--sides", o->sides, "Angled flanks: both, left or right")
+      ->check(CLI::IsMember({"both", "left", "right"}));
+  cmd->add_option("--chamfer", o->chamfer, "Top edge break (flags mode)");
+  cmd->add_option("--corner-radius", o->corner_radius, "Cutter corner radius (flags mode)");
+  cmd->add_flag("--json", o->json, "Print JSON instead of text");
+  cmd->callback([o] { run_pins(*o); });
+}
+
+}  // namespace dovetailor::cli

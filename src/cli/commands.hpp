@@ -1,0 +1,13 @@
+#pragma once
+
+#include <CLI/CLI.hpp>
+
+namespace dovetailor::cli {
+
+// Each subcommand lives in its own file: an options struct, a setup_...()
+// that binds the options to a CLI11 subcommand and registers run_... as its
+// callback. Errors for the user are thrown as InputError and caught in main.
+void setup_pins(CLI::App& app);
+void setup_fit(CLI::App& app);
+
+}  // namespace dovetailor::cli

@@ -1,0 +1,287 @@
+#include <dovetailor/dovetail_section.hpp>
+#include <dovetailor/job_reader.hpp>
+#include <dovetailor/pin_gauge.hpp>
+
+#include <cmath>
+#include <set>
+
+#include <fmt/format.h>
+
+#include "toml_fields.hpp"
+
+namespace dovetailor {
+namespace {
+
+using detail::TableReader;
+
+// Lengths above this, in the file's units, are refused as typing errors
+// rather than planned: no dovetail slide is 100 in long or wide.
+double largest_length(Units units) { return units == Units::Inch ? 100.0 : 2500.0; }
+
+class JobReader {
+ public:
+  JobReader(std::string_view text, const std::string& file)
+      : file_(file), root_(detail::parse_toml(text, file)) {}
+
+  Job read() {
+    job_.source = file_;
+    TableReader top(root_, "", file_);
+    auto units = top.choice<Units>("units", {{"inch", Units::Inch}, {"mm", Units::Millimetre}});
+    if (!units) top.fail("units", "missing; write units = \"inch\" or units = \"mm\" at the top");
+    job_.units = *units;
+    read_part(top);
+    read_stock(top);
+    read_dovetail(top);
+    read_tools(top);
+    read_gauge(top);
+    read_machine(top);
+    top.reject_unknown();
+    check_combinations();
+    return job_;
+  }
+
+ private:
+  const toml::table& required_table(TableReader& top, std::string_view key) {
+    const auto* t = top.table(key);
+    if (!t) top.fail(key, fmt::format("missing table [{}]", key));
+    return *t;
+  }
+
+  double length(TableReader& t, std::string_view key, double min, bool required,
+                double fallback_mm = 0) {
+    auto value = t.number(key, min, largest_length(job_.units));
+    if (!value) {
+      if (required) t.fail(key, fmt::format("missing; give a length in {}", unit_name(job_.units)));
+      return fallback_mm;
+    }
+    return to_mm(*value, job_.units);
+  }
+
+  double positive_length(TableReader& t, std::string_view key) {
+    auto mm = length(t, key, 0, true);
+    if (mm <= 0) t.fail(key, "must be greater than zero");
+    return mm;
+  }
+
+  std::optional<double> optional_positive_length(TableReader& t, std::string_view key) {
+    if (!t.has(key)) {
+      t.number(key, 0, 0);  // absent: only registers the key as a valid one
+      return std::nullopt;
+    }
+    return positive_length(t, key);
+  }
+
+  void read_part(TableReader& top) {
+    const auto* table = top.table("part");
+    if (!table) return;
+    TableReader t(*table, "part", file_);
+    job_.part.name = t.text("name").value_or("");
+    job_.part.material = t.text("material").value_or("");
+    t.reject_unknown();
+  }
+
+  void read_stock(TableReader& top) {
+    TableReader t(required_table(top, "stock"), "stock", file_);
+    auto size = t.numbers("size", 3, 0, largest_length(job_.units));
+    if (!size) t.fail("size", "missing; give size = [x_width, y_length, z_height]");
+    for (double v : *size)
+      if (v <= 0) t.fail("size", "every stock size must be greater than zero");
+    job_.stock = {to_mm((*size)[0], job_.units), to_mm((*size)[1], job_.units),
+                  to_mm((*size)[2], job_.units)};
+    t.reject_unknown();
+    stock_place_ = t.place("size");
+  }
+
+  void read_dovetail(TableReader& top) {
+    TableReader t(required_table(top, "dovetail"), "dovetail", file_);
+    auto& d = job_.dovetail;
+    auto type = t.choice<DovetailType>("type",
+                                       {{"male", DovetailType::Male}, {"female", DovetailType::Female}});
+    if (!type) t.fail("type", "missing; give type = \"male\" or \"female\"");
+    d.type = *type;
+    d.angle = t.required_number("angle", 30, 75);
+    d.depth = positive_length(t, "depth");
+    d.width = positive_length(t, "width");
+    auto at = t.choice<WidthAt>("width_at", {{"bottom", WidthAt::Bottom}, {"top", WidthAt::Top}});
+    if (!at) t.fail("width_at", "missing; give width_at = \"bottom\" (base plane) or \"top\"");
+    d.width_at = *at;
+    d.sides = t.choice<AngledSides>("sides", {{"both", AngledSides::Both},
+                                              {"left", AngledSides::Left},
+                                              {"right", AngledSides::Right}})
+                  .value_or(AngledSides::Both);
+    d.center = to_mm(t.number("center", -largest_length(job_.units), largest_length(job_.units))
+                         .value_or(0),
+                     job_.units);
+    d.length = length(t, "length", 0, false, job_.stock.length);
+    if (t.has("length") && d.length <= 0) t.fail("length", "must be greater than zero");
+    if (d.length > job_.stock.length + 1e-9)
+      t.fail("length", "is longer than the stock (stock.size[1])");
+    d.tolerance = default_tolerance(d.type, job_.units);
+    if (auto band = t.numbers("tolerance", 2, -largest_length(job_.units), largest_length(job_.units))) {
+      if ((*band)[0] >= (*band)[1])
+        t.fail("tolerance", "the lower limit must be below the upper, as [lower, upper]");
+      d.tolerance = {to_mm((*band)[0], job_.units), to_mm((*band)[1], job_.units)};
+    }
+    d.ends = t.choice<Ends>("ends", {{"open", Ends::Open},
+                                     {"front-open", Ends::FrontOpen},
+                                     {"closed", Ends::Closed}})
+                 .value_or(Ends::Open);
+    d.chamfer = length(t, "chamfer", 0, false, 0);
+    if (d.chamfer >= d.depth) t.fail("chamfer", "must be smaller than the depth");
+    if (const auto* gib = t.table("gib")) read_gib(*gib);
+    t.reject_unknown();
+    dovetail_place_ = t.place("width");
+  }
+
+  void read_gib(const toml::table& table) {
+    TableReader t(table, "dovetail.gib", file_);
+    Gib gib;
+    auto side = t.choice<Side>("side", {{"left", Side::Left}, {"right", Side::Right}});
+    if (!side) t.fail("side", "missing; give side = \"left\" or \"right\"");
+    gib.side = *side;
+    gib.thickness = positive_length(t, "thickness");
+    gib.taper = t.number("taper", 0, 1000).value_or(0);
+    if (gib.taper != 0 && gib.taper < 10)
+      t.fail("taper", "give 0 for a parallel gib or N >= 10 for a taper of 1:N (1:50 to 1:100 "
+                      "is usual)");
+    const auto sides = job_.dovetail.sides;
+    if ((sides == AngledSides::Left && gib.side == Side::Right) ||
+        (sides == AngledSides::Right && gib.side == Side::Left))
+      t.fail("side", "the gib must sit on an angled flank; that side is square");
+    t.reject_unknown();
+    job_.dovetail.gib = gib;
+  }
+
+  void read_tools(TableReader& top) {
+    std::set<int> numbers;
+    int index = 0;
+    for (const auto* table : top.tables("tool")) {
+      ++index;
+      TableReader t(*table, fmt::format("tool[{}]", index), file_);
+      Tool tool;
+      auto number = t.integer("number", 1, 9999);
+      if (!number) t.fail("number", "missing; give the tool number (the T word), 1 to 9999");
+      tool.number = static_cast<int>(*number);
+      if (!numbers.insert(tool.number).second)
+        t.fail("number", fmt::format("tool number {} is used twice", tool.number));
+      auto kind = t.choice<ToolKind>("kind", {{"end-mill", ToolKind::EndMill},
+                                              {"dovetail", ToolKind::Dovetail}});
+      if (!kind) t.fail("kind", "missing; give kind = \"end-mill\" or \"dovetail\"");
+      tool.kind = *kind;
+      tool.diameter = positive_length(t, "diameter");
+      auto flutes = t.integer("flutes", 1, 32);
+      if (!flutes) t.fail("flutes", "missing; give the number of flutes, 1 to 32");
+      tool.flutes = static_cast<int>(*flutes);
+      tool.flute_length = positive_length(t, "flute_length");
+      auto material = t.choice<ToolMaterial>("material", {{"hss", ToolMaterial::Hss},
+                                                          {"carbide", ToolMaterial::Carbide}});
+      if (!material) t.fail("material", "missing; give material = \"hss\" or \"carbide\"");
+      tool.material = *material;
+      const bool dovetail = tool.kind == ToolKind::Dovetail;
+      const auto only_dovetail = [&](std::string_view key) {
+        if (!dovetail && t.has(key))
+          t.fail(key, "applies only to dovetail cutters (kind = \"dovetail\")");
+      };
+      for (std::string_view key : {"angle", "neck_diameter", "corner_radius"}) only_dovetail(key);
+      if (dovetail) {
+        tool.angle = t.required_number("angle", 30, 75);
+        tool.neck_diameter = positive_length(t, "neck_diameter");
+        tool.corner_radius = length(t, "corner_radius", 0, false, 0);
+        const double small = tool.diameter - 2 * tool.flute_length * cot_deg(tool.angle);
+        if (small <= 0)
+          t.fail("flute_length", "the cone would close before the flute length ends; check "
+                                 "diameter, angle and flute_length");
+        if (tool.neck_diameter > small + 1e-9)
+          t.fail("neck_diameter", "must be no larger than the small diameter at the top of the "
+                                  "flutes (diameter - 2 * flute_length * cot(angle))");
+        if (tool.corner_radius >= tool.flute_length)
+          t.fail("corner_radius", "must be smaller than the flute length");
+      }
+      tool.shank_diameter = optional_positive_length(t, "shank_diameter");
+      tool.stickout = optional_positive_length(t, "stickout");
+      tool.holder_diameter = optional_positive_length(t, "holder_diameter");
+      if (tool.stickout && *tool.stickout < tool.flute_length)
+        t.fail("stickout", "is shorter than the flute length");
+      t.reject_unknown();
+      job_.tools.push_back(tool);
+    }
+  }
+
+  void read_gauge(TableReader& top) {
+    const auto* table = top.table("gauge");
+    if (!table) return;
+    TableReader t(*table, "gauge", file_);
+    Gauge g;
+    g.pin_diameter = positive_length(t, "pin_diameter");
+    g.pin_class = t.text("pin_class").value_or("");
+    t.reject_unknown();
+    gauge_place_ = t.place("pin_diameter");
+    job_.gauge = g;
+  }
+
+  void read_machine(TableReader& top) {
+    const auto* table = top.table("machine");
+    if (!table) return;
+    TableReader t(*table, "machine", file_);
+    job_.machine.kind = t.choice<MachineKind>("kind", {{"cnc", MachineKind::Cnc},
+                                                       {"manual", MachineKind::Manual}})
+                            .value_or(MachineKind::Cnc);
+    t.reject_unknown();
+  }
+
+  void check_combinations() {
+    const auto& d = job_.dovetail;
+    const int angled = d.sides == AngledSides::Both ? 2 : 1;
+    const double bottom = design_width_bottom(d);
+    const double top = width_top_from_bottom(d.type, bottom, d.depth, d.angle, angled);
+    const auto show = [&](double mm) {
+      return fmt::format("{:.{}f} {}", from_mm(mm, job_.units), length_decimals(job_.units),
+                         unit_symbol(job_.units));
+    };
+    if (bottom <= 0 || top <= 0)
+      throw InputError(
+          fmt::format("a {} dovetail {} deep at {} deg with this width has a {} of {}: the "
+                      "flanks cross; give a wider dovetail or a shallower depth",
+                      d.type == DovetailType::Female ? "female" : "male", show(d.depth), d.angle,
+                      bottom <= 0 ? "base-plane width" : "mouth width",
+                      show(bottom <= 0 ? bottom : top)),
+          dovetail_place_, "dovetail.width");
+    if (d.depth >= job_.stock.height)
+      throw InputError(fmt::format("the dovetail is {} deep but the stock is only {} high",
+                                   show(d.depth), show(job_.stock.height)),
+                       dovetail_place_, "dovetail.depth");
+    const auto section = section_of(d);
+    const double widest_left = std::min(section.left.base.x, section.left.top.x);
+    const double widest_right = std::max(section.right.base.x, section.right.top.x);
+    if (widest_left < stock_left_x(job_) || widest_right > stock_right_x(job_))
+      throw InputError(
+          fmt::format("the dovetail spans x = {} to {} from its centre line, but the stock "
+                      "spans {} to {}; give wider stock or move dovetail.center",
+                      show(widest_left), show(widest_right), show(stock_left_x(job_)),
+                      show(stock_right_x(job_))),
+          stock_place_, "stock.size");
+    if (job_.gauge) {
+      const Tool* cutter = first_tool(job_, ToolKind::Dovetail);
+      const auto problems = pin_problems_for(section, cutter ? cutter->corner_radius : 0);
+      if (!problems.empty()) throw InputError(problems.front(), gauge_place_, "gauge.pin_diameter");
+    }
+  }
+
+  std::vector<std::string> pin_problems_for(const DovetailSection& section,
+                                            double corner_radius) {
+    return pin_problems(section, job_.gauge->pin_diameter, corner_radius, job_.units);
+  }
+
+  std::string file_;
+  toml::table root_;
+  Job job_;
+  SourcePlace stock_place_;
+  SourcePlace dovetail_place_;
+  SourcePlace gauge_place_;
+};
+
+}  // namespace
+
+Job read_job(std::string_view text, const std::string& file) { return JobReader(text, file).read(); }
+
+}  // namespace dovetailor
