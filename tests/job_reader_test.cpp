@@ -1,1 +1,204 @@
+#include <fstream>
+#include <sstream>
+
 #include <gtest/gtest.h>
+
+#include <dovetailor/job_reader.hpp>
+
+#include "test_support.hpp"
+
+namespace dovetailor {
+namespace {
+
+using testing::expect_input_error;
+
+// A valid job; tests replace one line to make each error.
+const std::string valid = R"(units = "inch"
+[part]
+name = "test slide"
+material = "1018"
+[stock]
+size = [3.0, 6.0, 1.25]
+[dovetail]
+type = "female"
+angle = 60
+depth = 0.375
+width = 1.5
+width_at = "top"
+[[tool]]
+number = 1
+kind = "end-mill"
+diameter = 0.75
+flutes = 4
+flute_length = 1.0
+material = "carbide"
+[[tool]]
+number = 2
+kind = "dovetail"
+diameter = 1.0
+flutes = 6
+flute_length = 0.4375
+material = "hss"
+angle = 60
+neck_diameter = 0.375
+[gauge]
+pin_diameter = 0.25
+)";
+
+std::string replace(const std::string& text, const std::string& from, const std::string& to) {
+  const auto at = text.find(from);
+  EXPECT_NE(at, std::string::npos) << from;
+  return text.substr(0, at) + to + text.substr(at + from.size());
+}
+
+TEST(job_reader, reads_a_valid_job_in_millimetres) {
+  const Job job = read_job(valid, "slide.toml");
+  EXPECT_EQ(job.units, Units::Inch);
+  EXPECT_EQ(job.part.name, "test slide");
+  EXPECT_DOUBLE_EQ(job.stock.width, 3.0 * 25.4);
+  EXPECT_DOUBLE_EQ(job.dovetail.depth, 0.375 * 25.4);
+  EXPECT_EQ(job.dovetail.width_at, WidthAt::Top);
+  EXPECT_EQ(job.dovetail.sides, AngledSides::Both);
+  EXPECT_DOUBLE_EQ(job.dovetail.length, job.stock.length);  // default: the stock length
+  ASSERT_EQ(job.tools.size(), 2u);
+  EXPECT_EQ(job.tools[1].kind, ToolKind::Dovetail);
+  EXPECT_DOUBLE_EQ(job.tools[1].neck_diameter, 0.375 * 25.4);
+  ASSERT_TRUE(job.gauge.has_value());
+  EXPECT_DOUBLE_EQ(job.gauge->pin_diameter, 0.25 * 25.4);
+}
+
+TEST(job_reader, default_tolerance_favours_a_sliding_fit) {
+  const Job female = read_job(valid, "f.toml");
+  EXPECT_DOUBLE_EQ(female.dovetail.tolerance.lower, 0);
+  EXPECT_DOUBLE_EQ(female.dovetail.tolerance.upper, 0.001 * 25.4);
+  const Job male = read_job(replace(valid, "type = \"female\"", "type = \"male\""), "m.toml");
+  EXPECT_DOUBLE_EQ(male.dovetail.tolerance.lower, -0.001 * 25.4);
+  EXPECT_DOUBLE_EQ(male.dovetail.tolerance.upper, 0);
+}
+
+TEST(job_reader, every_sample_job_reads) {
+  for (const char* name : {"samples/fixture-slide-female.toml", "samples/stop-block-male.toml",
+                           "samples/height-stop-half-female.toml"}) {
+    std::ifstream in(testing::source_path(name));
+    ASSERT_TRUE(in) << name;
+    std::stringstream text;
+    text << in.rdbuf();
+    EXPECT_NO_THROW(read_job(text.str(), name)) << name;
+  }
+}
+
+TEST(job_reader, syntax_error_names_line_and_column) {
+  expect_input_error([] { read_job(replace(valid, "depth = 0.375", "depth = = 0.375"), "j.toml"); },
+                     {"j.toml:10:", "not valid TOML"});
+}
+
+TEST(job_reader, unknown_key_names_key_line_and_valid_keys) {
+  expect_input_error(
+      [] { read_job(replace(valid, "depth = 0.375", "depth = 0.375\ndepht = 1"), "j.toml"); },
+      {"j.toml:11:", "dovetail.depht", "unknown key", "valid keys here are"});
+}
+
+TEST(job_reader, wrong_type_names_key_and_line) {
+  expect_input_error(
+      [] { read_job(replace(valid, "angle = 60\ndepth", "angle = \"sixty\"\ndepth"), "j.toml"); },
+      {"j.toml:9:", "dovetail.angle", "expected a number, found a string"});
+}
+
+TEST(job_reader, missing_required_key_names_key) {
+  expect_input_error([] { read_job(replace(valid, "width_at = \"top\"\n", ""), "j.toml"); },
+                     {"j.toml:", "dovetail.width_at", "missing"});
+  expect_input_error([] { read_job(replace(valid, "units = \"inch\"\n", ""), "j.toml"); },
+                     {"units", "missing"});
+}
+
+TEST(job_reader, non_finite_numbers_are_refused) {
+  for (const char* spelling : {"nan", "+nan", "-nan", "inf", "+inf", "-inf"}) {
+    expect_input_error(
+        [&] {
+          read_job(replace(valid, "depth = 0.375", std::string("depth = ") + spelling), "j.toml");
+        },
+        {"j.toml:10:", "dovetail.depth", "finite"});
+  }
+}
+
+TEST(job_reader, out_of_range_numbers_say_the_range) {
+  expect_input_error(
+      [] { read_job(replace(valid, "angle = 60\ndepth", "angle = 90\ndepth"), "j.toml"); },
+      {"j.toml:9:", "dovetail.angle", "from 30 to 75"});
+  expect_input_error([] { read_job(replace(valid, "depth = 0.375", "depth = -0.375"), "j.toml"); },
+                     {"j.toml:10:", "dovetail.depth", "out of range"});
+  expect_input_error([] { read_job(replace(valid, "depth = 0.375", "depth = 0"), "j.toml"); },
+                     {"j.toml:10:", "dovetail.depth", "greater than zero"});
+  expect_input_error([] { read_job(replace(valid, "depth = 0.375", "depth = 1e300"), "j.toml"); },
+                     {"j.toml:10:", "dovetail.depth", "out of range"});
+}
+
+TEST(job_reader, wrong_word_lists_the_valid_ones) {
+  expect_input_error(
+      [] { read_job(replace(valid, "type = \"female\"", "type = \"tongue\""), "j.toml"); },
+      {"j.toml:8:", "dovetail.type", "\"male\", \"female\""});
+  expect_input_error(
+      [] { read_job(replace(valid, "units = \"inch\"", "units = \"cm\""), "j.toml"); },
+      {"j.toml:1:", "units", "\"inch\", \"mm\""});
+}
+
+TEST(job_reader, impossible_combinations_are_explained) {
+  // A female mouth that would close: 2 * 1.2 * cot 60 = 1.386 > 1.0 floor width.
+  expect_input_error(
+      [] {
+        auto text = replace(valid, "width_at = \"top\"", "width_at = \"bottom\"");
+        text = replace(text, "width = 1.5", "width = 1.0");
+        text = replace(text, "depth = 0.375", "depth = 1.2");
+        read_job(text, "j.toml");
+      },
+      {"j.toml:", "dovetail.width", "flanks cross"});
+  expect_input_error(
+      [] {
+        read_job(replace(valid, "size = [3.0, 6.0, 1.25]", "size = [1.5, 6.0, 1.25]"), "j.toml");
+      },
+      {"j.toml:6:", "stock.size", "stock spans"});
+  expect_input_error(
+      [] {
+        read_job(replace(valid, "size = [3.0, 6.0, 1.25]", "size = [3.0, 6.0, 0.3]"), "j.toml");
+      },
+      {"dovetail.depth", "stock is only"});
+  expect_input_error(
+      [] { read_job(replace(valid, "pin_diameter = 0.25", "pin_diameter = 0.6"), "j.toml"); },
+      {"j.toml:30:", "gauge.pin_diameter", "flank ends"});
+  expect_input_error(
+      [] {
+        read_job(replace(valid, "width_at = \"top\"",
+                         "width_at = \"top\"\nsides = \"left\"\ngib = { side = \"right\", "
+                         "thickness = 0.1 }"),
+                 "j.toml");
+      },
+      {"dovetail.gib.side", "square"});
+}
+
+TEST(job_reader, dovetail_cutter_must_be_consistent) {
+  expect_input_error(
+      [] { read_job(replace(valid, "neck_diameter = 0.375", "neck_diameter = 0.6"), "j.toml"); },
+      {"j.toml:28:", "tool[2].neck_diameter", "small diameter"});
+  expect_input_error(
+      [] {
+        read_job(replace(valid, "kind = \"end-mill\"", "kind = \"end-mill\"\nangle = 60"),
+                 "j.toml");
+      },
+      {"tool[1].angle", "only to dovetail cutters"});
+  expect_input_error([] { read_job(replace(valid, "number = 2", "number = 1"), "j.toml"); },
+                     {"tool[2].number", "used twice"});
+}
+
+TEST(job_reader, tables_of_the_wrong_shape_are_refused) {
+  expect_input_error(
+      [] {
+        read_job(replace(valid, "[[tool]]\nnumber = 1", "tool = 3\n[[toolx]]\nnumber = 1"),
+                 "j.toml");
+      },
+      {"tool"});
+  expect_input_error([] { read_job("units = \"mm\"\nstock = 3\n", "j.toml"); },
+                     {"j.toml:2:", "stock", "expected a table"});
+}
+
+}  // namespace
+}  // namespace dovetailor

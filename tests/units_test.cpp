@@ -1,6 +1,6 @@
-#include <dovetailor/units.hpp>
-
 #include <gtest/gtest.h>
+
+#include <dovetailor/units.hpp>
 
 namespace dovetailor {
 namespace {

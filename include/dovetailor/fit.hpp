@@ -27,6 +27,9 @@ struct MeasuredPart {
   double reading = 0;
   double pin_diameter = 0;
   double depth = 0;  // needed for the female only
+  // Lateral gib allowance included in the reading: the pins measure the part
+  // as cut, and in assembly the gib fills this much of the width.
+  double gib_allowance = 0;
 
   bool operator==(const MeasuredPart&) const = default;
 };

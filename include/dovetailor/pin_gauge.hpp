@@ -24,9 +24,9 @@ double contact_height(double pin_diameter, double angle);
 
 // How a dovetail is read with pins.
 enum class ReadingMethod {
-  OverPins,           // male, both flanks angled: micrometer over two pins
-  BetweenPins,        // female, both flanks angled: inside measurement between two pins
-  SquareSideToPin,    // one flank angled: from the square flank to one pin
+  OverPins,         // male, both flanks angled: micrometer over two pins
+  BetweenPins,      // female, both flanks angled: inside measurement between two pins
+  SquareSideToPin,  // one flank angled: from the square flank to one pin
 };
 
 struct PinReading {
@@ -45,8 +45,8 @@ ReadingMethod reading_method(DovetailType type, int angled_flanks);
 // (male) or takes it away (female).
 double reading_for_width(DovetailType type, int angled_flanks, double width_bottom,
                          double pin_diameter, double angle);
-double width_for_reading(DovetailType type, int angled_flanks, double reading,
-                         double pin_diameter, double angle);
+double width_for_reading(DovetailType type, int angled_flanks, double reading, double pin_diameter,
+                         double angle);
 
 // The reading the finished section gives with pins of diameter D.
 PinReading reading_of(const DovetailSection& section, double pin_diameter);

@@ -23,14 +23,10 @@ constexpr double from_mm(double mm, Units units) {
 }
 
 // "in" or "mm": the symbol printed beside numbers.
-constexpr std::string_view unit_symbol(Units units) {
-  return units == Units::Inch ? "in" : "mm";
-}
+constexpr std::string_view unit_symbol(Units units) { return units == Units::Inch ? "in" : "mm"; }
 
 // "inch" or "mm": the spelling used in job files.
-constexpr std::string_view unit_name(Units units) {
-  return units == Units::Inch ? "inch" : "mm";
-}
+constexpr std::string_view unit_name(Units units) { return units == Units::Inch ? "inch" : "mm"; }
 
 // Decimal places that a length in `units` is shown with: 4 for inch (0.0001 in),
 // 3 for mm (0.001 mm), the usual resolution of a micrometer (common practice).

@@ -49,6 +49,8 @@ struct FitResult {
   double female_pin = 0;
   double female_depth = 0;
   double male_pin = 0;
+  double female_gib = 0;  // lateral gib allowances in the readings
+  double male_gib = 0;
 };
 
 MeasuredPart part_from_job(const Job& job) {
@@ -57,7 +59,7 @@ MeasuredPart part_from_job(const Job& job) {
     throw InputError("needs [gauge] pin_diameter to state its reading", {job.source},
                      "gauge.pin_diameter");
   return {job.dovetail.type, reading_of(section, job.gauge->pin_diameter).value,
-          job.gauge->pin_diameter, job.dovetail.depth};
+          job.gauge->pin_diameter, job.dovetail.depth, section.gib_allowance};
 }
 
 FitResult fit_from_jobs(const FitOptions& o) {
@@ -93,6 +95,8 @@ FitResult fit_from_jobs(const FitOptions& o) {
   r.female_pin = female.gauge ? female.gauge->pin_diameter : 0;
   r.male_pin = male.gauge ? male.gauge->pin_diameter : 0;
   r.female_depth = female.dovetail.depth;
+  r.female_gib = section_of(female.dovetail).gib_allowance;
+  r.male_gib = section_of(male.dovetail).gib_allowance;
   if (!std::isnan(o.clearance)) r.clearance = to_mm(o.clearance, r.units);
   return r;
 }
@@ -125,14 +129,15 @@ FitResult fit_from_flags(const FitOptions& o) {
 
 void add_targets(FitResult& r) {
   if (!r.clearance) return;
-  const MeasuredPart male_target{DovetailType::Male, 0, r.male_pin, 0};
-  const MeasuredPart female_target{DovetailType::Female, 0, r.female_pin, r.female_depth};
+  const MeasuredPart male_target{DovetailType::Male, 0, r.male_pin, 0, r.male_gib};
+  const MeasuredPart female_target{DovetailType::Female, 0, r.female_pin, r.female_depth,
+                                   r.female_gib};
   if (r.female && r.male_pin > 0)
-    r.target_male = reading_for_clearance(*r.female, male_target, r.angle, r.angled_flanks,
-                                          *r.clearance);
+    r.target_male =
+        reading_for_clearance(*r.female, male_target, r.angle, r.angled_flanks, *r.clearance);
   if (r.male && r.female_pin > 0)
-    r.target_female = reading_for_clearance(*r.male, female_target, r.angle, r.angled_flanks,
-                                            *r.clearance);
+    r.target_female =
+        reading_for_clearance(*r.male, female_target, r.angle, r.angled_flanks, *r.clearance);
 }
 
 void print_text(const FitResult& r) {
@@ -159,12 +164,11 @@ void print_text(const FitResult& r) {
     fmt::print("\n");
     row("Wanted lateral clearance", signed_length(*r.clearance, u));
     if (r.target_male)
-      row("Aim the male over pins at", fmt::format("{} ({} pins)", length(*r.target_male, u),
-                                                   number(r.male_pin, u)));
+      row("Aim the male over pins at",
+          fmt::format("{} ({} pins)", length(*r.target_male, u), number(r.male_pin, u)));
     if (r.target_female)
-      row("Aim the female between pins at", fmt::format("{} ({} pins)",
-                                                        length(*r.target_female, u),
-                                                        number(r.female_pin, u)));
+      row("Aim the female between pins at",
+          fmt::format("{} ({} pins)", length(*r.target_female, u), number(r.female_pin, u)));
   }
   fmt::print("\n{}\n", convention);
 }

@@ -48,18 +48,24 @@ struct PinsCase {
 
 std::string method_text(const PinReading& r) {
   switch (r.method) {
-    case ReadingMethod::OverPins: return "Reading over 2 pins";
-    case ReadingMethod::BetweenPins: return "Reading between 2 pins";
-    case ReadingMethod::SquareSideToPin: return "Square side to 1 pin";
+    case ReadingMethod::OverPins:
+      return "Reading over 2 pins";
+    case ReadingMethod::BetweenPins:
+      return "Reading between 2 pins";
+    case ReadingMethod::SquareSideToPin:
+      return "Square side to 1 pin";
   }
   return "Reading";
 }
 
 std::string method_key(const PinReading& r) {
   switch (r.method) {
-    case ReadingMethod::OverPins: return "over-pins";
-    case ReadingMethod::BetweenPins: return "between-pins";
-    case ReadingMethod::SquareSideToPin: return "square-side-to-pin";
+    case ReadingMethod::OverPins:
+      return "over-pins";
+    case ReadingMethod::BetweenPins:
+      return "between-pins";
+    case ReadingMethod::SquareSideToPin:
+      return "square-side-to-pin";
   }
   return "";
 }
@@ -76,10 +82,11 @@ PinsCase case_from_job(const PinsOptions& o) {
   } else if (job.gauge) {
     c.pin = job.gauge->pin_diameter;
   } else {
-    throw InputError("no pin size: add [gauge] pin_diameter to the job or give --pin",
-                     {o.job_file}, "gauge.pin_diameter");
+    throw InputError("no pin size: add [gauge] pin_diameter to the job or give --pin", {o.job_file},
+                     "gauge.pin_diameter");
   }
-  if (const Tool* cutter = first_tool(job, ToolKind::Dovetail)) c.corner_radius = cutter->corner_radius;
+  if (const Tool* cutter = first_tool(job, ToolKind::Dovetail))
+    c.corner_radius = cutter->corner_radius;
   c.job = std::move(job);
   return c;
 }
@@ -115,7 +122,7 @@ PinsCase case_from_flags(const PinsOptions& o) {
     throw InputError("must be smaller than the depth", {"flags"}, "--chamfer");
   c.section = section_of(spec);
   c.tolerance = default_tolerance(spec.type, c.units);
-  c.title = fmt::format("{} dovetail", type_name(spec.type));
+  c.title = "Dovetail given by flags";
   return c;
 }
 

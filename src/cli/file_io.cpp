@@ -14,8 +14,7 @@ namespace dovetailor::cli {
 
 std::string read_text_file(const std::string& path, std::size_t max_bytes) {
   std::error_code ec;
-  if (std::filesystem::is_directory(path, ec))
-    throw InputError("is a folder, not a file", {path});
+  if (std::filesystem::is_directory(path, ec)) throw InputError("is a folder, not a file", {path});
   std::ifstream in(path, std::ios::binary);
   if (!in) throw InputError(std::string("cannot open: ") + std::strerror(errno), {path});
   std::string text;

@@ -25,9 +25,9 @@ AngledSides parse_sides(const std::string& word) {
 double require_flag(double value, const std::string& flag, double min, double max) {
   if (std::isnan(value)) throw InputError("missing", {"flags"}, flag);
   if (!std::isfinite(value) || value <= min || value > max)
-    throw InputError(fmt::format("{:g} is out of range: must be above {:g} and at most {:g}", value,
-                                 min, max),
-                     {"flags"}, flag);
+    throw InputError(
+        fmt::format("{:g} is out of range: must be above {:g} and at most {:g}", value, min, max),
+        {"flags"}, flag);
   return value;
 }
 

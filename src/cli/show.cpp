@@ -26,15 +26,16 @@ double json_length(double mm, Units units) {
   return std::round(from_mm(mm, units) * scale) / scale;
 }
 
-std::string type_name(DovetailType type) {
-  return type == DovetailType::Male ? "male" : "female";
-}
+std::string type_name(DovetailType type) { return type == DovetailType::Male ? "male" : "female"; }
 
 std::string sides_name(AngledSides sides) {
   switch (sides) {
-    case AngledSides::Both: return "both";
-    case AngledSides::Left: return "left";
-    case AngledSides::Right: return "right";
+    case AngledSides::Both:
+      return "both";
+    case AngledSides::Left:
+      return "left";
+    case AngledSides::Right:
+      return "right";
   }
   return "both";
 }

@@ -1,6 +1,6 @@
-#include <dovetailor/dovetail_section.hpp>
-
 #include <cmath>
+
+#include <dovetailor/dovetail_section.hpp>
 
 namespace dovetailor {
 
@@ -68,11 +68,23 @@ std::vector<Point2> part_outline(const DovetailSection& s, double stock_left, do
                                  double stock_height) {
   const double floor = -s.depth;
   if (s.type == DovetailType::Female) {
-    return {{stock_left, -stock_height}, {stock_right, -stock_height}, {stock_right, 0},
-            s.right.top, s.right.base, s.left.base, s.left.top, {stock_left, 0}};
+    return {{stock_left, -stock_height},
+            {stock_right, -stock_height},
+            {stock_right, 0},
+            s.right.top,
+            s.right.base,
+            s.left.base,
+            s.left.top,
+            {stock_left, 0}};
   }
-  return {{stock_left, -stock_height}, {stock_right, -stock_height}, {stock_right, floor},
-          s.right.base, s.right.top, s.left.top, s.left.base, {stock_left, floor}};
+  return {{stock_left, -stock_height},
+          {stock_right, -stock_height},
+          {stock_right, floor},
+          s.right.base,
+          s.right.top,
+          s.left.top,
+          s.left.base,
+          {stock_left, floor}};
 }
 
 double stock_left_x(const Job& job) { return -job.dovetail.center - job.stock.width / 2; }

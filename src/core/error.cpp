@@ -1,6 +1,6 @@
-#include <dovetailor/error.hpp>
-
 #include <utility>
+
+#include <dovetailor/error.hpp>
 
 namespace dovetailor {
 

@@ -1,8 +1,8 @@
-#include <dovetailor/pin_gauge.hpp>
-
 #include <cmath>
 
 #include <fmt/format.h>
+
+#include <dovetailor/pin_gauge.hpp>
 
 namespace dovetailor {
 
@@ -80,7 +80,8 @@ std::vector<std::string> pin_problems(const DovetailSection& section, double pin
     problems.push_back(fmt::format(
         "a {} pin touches the flank {} above the base plane, but the flank ends at {}{}; "
         "use a pin smaller than {}",
-        show(pin_diameter), show(h), show(usable), section.chamfer > 0 ? " (below the chamfer)" : "",
+        show(pin_diameter), show(h), show(usable),
+        section.chamfer > 0 ? " (below the chamfer)" : "",
         show(largest_pin(section.depth, section.chamfer, section.angle))));
   }
   if (pin_diameter / 2 <= corner_radius) {

@@ -1,0 +1,20 @@
+# Runs one command of the CLI and checks its exit code and output.
+#   cmake -DCOMMAND="a|b|c" -DEXIT=2 [-DSTDOUT=regex] [-DSTDERR=regex]
+#         [-DNO_STDOUT=ON] -P expect_run.cmake
+string(REPLACE "|" ";" COMMAND "${COMMAND}")
+execute_process(COMMAND ${COMMAND} RESULT_VARIABLE code OUTPUT_VARIABLE out ERROR_VARIABLE err)
+if(NOT "${code}" STREQUAL "${EXIT}")
+  message(FATAL_ERROR "exit code ${code}, expected ${EXIT}\nstdout:\n${out}\nstderr:\n${err}")
+endif()
+if(DEFINED STDOUT AND NOT out MATCHES "${STDOUT}")
+  message(FATAL_ERROR "stdout does not match '${STDOUT}':\n${out}")
+endif()
+if(DEFINED STDERR AND NOT err MATCHES "${STDERR}")
+  message(FATAL_ERROR "stderr does not match '${STDERR}':\n${err}")
+endif()
+if(NO_STDOUT AND NOT out STREQUAL "")
+  message(FATAL_ERROR "expected no output on stdout, got:\n${out}")
+endif()
+if(err MATCHES "terminate called|Aborted|Segmentation")
+  message(FATAL_ERROR "the tool crashed:\n${err}")
+endif()
