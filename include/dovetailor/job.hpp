@@ -25,6 +25,7 @@ enum class Side { Left, Right };  // -X and +X of the centre line
 enum class ToolKind { EndMill, Dovetail };
 enum class ToolMaterial { Hss, Carbide };
 enum class MachineKind { Cnc, Manual };
+enum class MillingMode { Conventional, Climb, Both };
 
 struct Part {
   std::string name;
@@ -51,6 +52,37 @@ struct Gib {
   bool operator==(const Gib&) const = default;
 };
 
+// An existing mating part, measured over or between pins: the planner derives
+// this part's width from it so that the pair has `clearance` (lateral, total
+// of both flanks; see fit.hpp).
+struct Mate {
+  DovetailType type = DovetailType::Male;
+  double reading = 0;
+  double pin_diameter = 0;
+  double depth = 0;      // the mate's depth; needed when the mate is the female
+  double clearance = 0;  // wanted lateral clearance of the pair
+
+  bool operator==(const Mate&) const = default;
+};
+
+enum class CheckpointAt { AfterRoughing, BeforeFinish, AfterFinish };
+
+// How the planner cuts, from the job's [strategy] table; unset values are
+// chosen by the planner from the material and the cutters.
+struct Strategy {
+  std::optional<double> finish_allowance;  // lateral stock per flank left for finishing, mm
+  std::optional<double> rough_allowance;   // lateral stock the end mill leaves per side, mm
+  std::optional<double> floor_allowance;   // stock the end mill leaves on a female floor, mm
+  std::optional<MillingMode> direction;    // on a CNC; manual machines are always conventional
+  std::optional<std::vector<CheckpointAt>> checkpoints;  // where to stop and measure
+  bool spring_pass = true;
+  bool optional_stops = false;  // M1 instead of M0 at checkpoints
+  std::optional<int> end_mill;        // T numbers, when the job lists several
+  std::optional<int> dovetail_cutter;
+
+  bool operator==(const Strategy&) const = default;
+};
+
 // A signed band around a nominal size: the size is good from nominal + lower
 // to nominal + upper.
 struct Tolerance {
@@ -73,6 +105,8 @@ struct DovetailSpec {
   Ends ends = Ends::Open;
   double chamfer = 0;  // top edge break
   std::optional<Gib> gib;
+  std::optional<Mate> mate;
+  std::string mate_derivation;  // how the width was derived from the mate, in words
 
   bool operator==(const DovetailSpec&) const = default;
 };
@@ -118,6 +152,7 @@ struct Job {
   std::vector<Tool> tools;
   std::optional<Gauge> gauge;
   Machine machine;
+  Strategy strategy;
 
   bool operator==(const Job&) const = default;
 };

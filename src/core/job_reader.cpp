@@ -35,6 +35,7 @@ class JobReader {
     read_tools(top);
     read_gauge(top);
     read_machine(top);
+    read_strategy(top);
     top.reject_unknown();
     check_combinations();
     return job_;
@@ -65,7 +66,7 @@ class JobReader {
 
   std::optional<double> optional_positive_length(TableReader& t, std::string_view key) {
     if (!t.has(key)) {
-      t.number(key, 0, 0);  // absent: only registers the key as a valid one
+      t.allow(key);
       return std::nullopt;
     }
     return positive_length(t, key);
@@ -101,14 +102,25 @@ class JobReader {
     d.type = *type;
     d.angle = t.required_number("angle", 30, 75);
     d.depth = positive_length(t, "depth");
-    d.width = positive_length(t, "width");
-    auto at = t.choice<WidthAt>("width_at", {{"bottom", WidthAt::Bottom}, {"top", WidthAt::Top}});
-    if (!at) t.fail("width_at", "missing; give width_at = \"bottom\" (base plane) or \"top\"");
-    d.width_at = *at;
     d.sides = t.choice<AngledSides>("sides", {{"both", AngledSides::Both},
                                               {"left", AngledSides::Left},
                                               {"right", AngledSides::Right}})
                   .value_or(AngledSides::Both);
+    if (const auto* mate = t.table("mate")) read_mate(*mate);
+    const bool given = t.has("width");
+    if (given == d.mate.has_value())
+      t.fail("width", d.mate ? "give either width or mate, not both: the mate sets the width"
+                             : "missing; give the width (with width_at), or a mate to derive it");
+    auto at = t.choice<WidthAt>("width_at", {{"bottom", WidthAt::Bottom}, {"top", WidthAt::Top}});
+    if (given) {
+      d.width = positive_length(t, "width");
+      if (!at) t.fail("width_at", "missing; give width_at = \"bottom\" (base plane) or \"top\"");
+      d.width_at = *at;
+    } else if (at) {
+      t.fail("width_at", "the mate sets the width; leave width_at out");
+    } else {
+      resolve_mate(t);
+    }
     d.center = to_mm(
         t.number("center", -largest_length(job_.units), largest_length(job_.units)).value_or(0),
         job_.units);
@@ -132,6 +144,59 @@ class JobReader {
     if (const auto* gib = t.table("gib")) read_gib(*gib);
     t.reject_unknown();
     dovetail_place_ = t.place("width");
+  }
+
+  void read_mate(const toml::table& table) {
+    TableReader t(table, "dovetail.mate", file_);
+    Mate mate;
+    auto type = t.choice<DovetailType>("type",
+                                       {{"male", DovetailType::Male}, {"female", DovetailType::Female}});
+    if (!type) t.fail("type", "missing; the measured mating part is \"male\" or \"female\"");
+    if (*type == job_.dovetail.type)
+      t.fail("type", "the mate must be of the other type than this part");
+    mate.type = *type;
+    mate.reading = positive_length(t, "reading");
+    mate.pin_diameter = positive_length(t, "pin_diameter");
+    if (mate.type == DovetailType::Female) {
+      mate.depth = positive_length(t, "depth");
+    } else if (t.has("depth")) {
+      mate.depth = positive_length(t, "depth");
+    }
+    mate.clearance = to_mm(t.number("clearance", -1, 1).value_or(0), job_.units);
+    t.reject_unknown();
+    job_.dovetail.mate = mate;
+  }
+
+  // The width of this part from the measured mate (fit.hpp conventions).
+  void resolve_mate(TableReader& t) {
+    auto& d = job_.dovetail;
+    const Mate& m = *d.mate;
+    const int n = d.sides == AngledSides::Both ? 2 : 1;
+    const double mate_bottom = width_for_reading(m.type, n, m.reading, m.pin_diameter, d.angle);
+    const auto show = [&](double mm) {
+      return fmt::format("{:.{}f} {}", from_mm(mm, job_.units), length_decimals(job_.units) + 1,
+                         unit_symbol(job_.units));
+    };
+    if (m.type == DovetailType::Male) {
+      // The female's mouth must be the male's root plus the clearance.
+      d.width = mate_bottom + m.clearance;
+      d.width_at = WidthAt::Top;
+      d.mate_derivation = fmt::format(
+          "mate: male read {} over {} pins -> root width {}; mouth = root + clearance {} = {}",
+          show(m.reading), show(m.pin_diameter), show(mate_bottom), show(m.clearance),
+          show(d.width));
+    } else {
+      const double mouth = width_top_from_bottom(DovetailType::Female, mate_bottom, m.depth,
+                                                 d.angle, n);
+      d.width = mouth - m.clearance;
+      d.width_at = WidthAt::Bottom;
+      d.mate_derivation = fmt::format(
+          "mate: female read {} between {} pins, depth {} -> floor width {}, mouth {}; "
+          "root = mouth - clearance {} = {}",
+          show(m.reading), show(m.pin_diameter), show(m.depth), show(mate_bottom), show(mouth),
+          show(m.clearance), show(d.width));
+    }
+    if (d.width <= 0) t.fail("mate", "the measured mate leaves no width for this part");
   }
 
   void read_gib(const toml::table& table) {
@@ -230,6 +295,52 @@ class JobReader {
     job_.machine.kind =
         t.choice<MachineKind>("kind", {{"cnc", MachineKind::Cnc}, {"manual", MachineKind::Manual}})
             .value_or(MachineKind::Cnc);
+    t.reject_unknown();
+  }
+
+  void read_strategy(TableReader& top) {
+    const auto* table = top.table("strategy");
+    if (!table) return;
+    TableReader t(*table, "strategy", file_);
+    auto& st = job_.strategy;
+    const double small = largest_length(job_.units) / 100;  // 1 in or 25 mm
+    if (auto v = t.number("finish_allowance", 0, small)) st.finish_allowance = to_mm(*v, job_.units);
+    if (auto v = t.number("rough_allowance", 0, small)) st.rough_allowance = to_mm(*v, job_.units);
+    if (auto v = t.number("floor_allowance", 0, small)) st.floor_allowance = to_mm(*v, job_.units);
+    st.direction = t.choice<MillingMode>("direction", {{"conventional", MillingMode::Conventional},
+                                                       {"climb", MillingMode::Climb}});
+    if (t.has("checkpoints")) {
+      const auto* array = table->get("checkpoints")->as_array();
+      if (!array) t.fail("checkpoints", "expected an array such as [\"after-roughing\", \"after-finish\"]");
+      std::vector<CheckpointAt> at;
+      for (const auto& item : *array) {
+        const auto* word = item.as_string();
+        const std::string w = word ? word->get() : "";
+        if (w == "after-roughing") at.push_back(CheckpointAt::AfterRoughing);
+        else if (w == "before-finish") at.push_back(CheckpointAt::BeforeFinish);
+        else if (w == "after-finish") at.push_back(CheckpointAt::AfterFinish);
+        else
+          throw InputError("each checkpoint is \"after-roughing\", \"before-finish\" or "
+                           "\"after-finish\"",
+                           detail::place_of(item, file_), "strategy.checkpoints");
+      }
+      st.checkpoints = at;
+    }
+    t.allow("checkpoints");
+    st.spring_pass = t.flag("spring_pass").value_or(true);
+    st.optional_stops = t.flag("optional_stops").value_or(false);
+    if (auto n = t.integer("end_mill", 1, 9999)) {
+      const Tool* tool = find_tool(job_, static_cast<int>(*n));
+      if (!tool || tool->kind != ToolKind::EndMill)
+        t.fail("end_mill", "no [[tool]] with this number and kind = \"end-mill\"");
+      st.end_mill = static_cast<int>(*n);
+    }
+    if (auto n = t.integer("dovetail_cutter", 1, 9999)) {
+      const Tool* tool = find_tool(job_, static_cast<int>(*n));
+      if (!tool || tool->kind != ToolKind::Dovetail)
+        t.fail("dovetail_cutter", "no [[tool]] with this number and kind = \"dovetail\"");
+      st.dovetail_cutter = static_cast<int>(*n);
+    }
     t.reject_unknown();
   }
 

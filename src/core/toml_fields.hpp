@@ -59,6 +59,9 @@ class TableReader {
     fail(key, "\"" + *word + "\" is not one of " + valid);
   }
 
+  // Marks a key as valid that the caller reads by hand.
+  void allow(std::string_view key) { known_.emplace_back(key); }
+
   // Throws for the first key that was never read.
   void reject_unknown() const;
 
