@@ -18,10 +18,10 @@ namespace dovetailor {
 // stock's top face (z = 0); the base plane is at z = -depth.
 
 enum class DovetailType { Male, Female };
-enum class WidthAt { Bottom, Top };        // which plane `width` is given at
+enum class WidthAt { Bottom, Top };  // which plane `width` is given at
 enum class AngledSides { Both, Left, Right };
 enum class Ends { Open, FrontOpen, Closed };
-enum class Side { Left, Right };           // -X and +X of the centre line
+enum class Side { Left, Right };  // -X and +X of the centre line
 enum class ToolKind { EndMill, Dovetail };
 enum class ToolMaterial { Hss, Carbide };
 enum class MachineKind { Cnc, Manual };
@@ -67,8 +67,8 @@ struct DovetailSpec {
   double width = 0;   // at `width_at`
   WidthAt width_at = WidthAt::Bottom;
   AngledSides sides = AngledSides::Both;
-  double center = 0;  // lateral offset of the dovetail centre line from the middle of the stock
-  double length = 0;  // along Y, from y = 0
+  double center = 0;    // lateral offset of the dovetail centre line from the middle of the stock
+  double length = 0;    // along Y, from y = 0
   Tolerance tolerance;  // on the width
   Ends ends = Ends::Open;
   double chamfer = 0;  // top edge break
@@ -92,6 +92,13 @@ struct Tool {
   std::optional<double> shank_diameter;
   std::optional<double> stickout;  // gauge length, holder face to tip
   std::optional<double> holder_diameter;
+  // Optional user overrides of the computed cutting data (see cutting_data.hpp):
+  // spindle speed in rev/min, feed in mm/min, chip load (feed per tooth as
+  // programmed, no chip-thinning increase applied) in mm. A feed overrides a
+  // chip load; the reader refuses both on one tool.
+  std::optional<double> rpm;
+  std::optional<double> feed;
+  std::optional<double> chip_load;
 
   bool operator==(const Tool&) const = default;
 };
@@ -105,6 +112,9 @@ struct Gauge {
 
 struct Machine {
   MachineKind kind = MachineKind::Cnc;
+  // Limits the cutting data is capped at: spindle rev/min, feed in mm/min.
+  std::optional<double> max_rpm;
+  std::optional<double> max_feed;
 
   bool operator==(const Machine&) const = default;
 };
