@@ -18,10 +18,10 @@ namespace dovetailor {
 // stock's top face (z = 0); the base plane is at z = -depth.
 
 enum class DovetailType { Male, Female };
-enum class WidthAt { Bottom, Top };  // which plane `width` is given at
+enum class WidthAt { Bottom, Top };        // which plane `width` is given at
 enum class AngledSides { Both, Left, Right };
 enum class Ends { Open, FrontOpen, Closed };
-enum class Side { Left, Right };  // -X and +X of the centre line
+enum class Side { Left, Right };           // -X and +X of the centre line
 enum class ToolKind { EndMill, Dovetail };
 enum class ToolMaterial { Hss, Carbide };
 enum class MachineKind { Cnc, Manual };
@@ -67,8 +67,8 @@ struct DovetailSpec {
   double width = 0;   // at `width_at`
   WidthAt width_at = WidthAt::Bottom;
   AngledSides sides = AngledSides::Both;
-  double center = 0;    // lateral offset of the dovetail centre line from the middle of the stock
-  double length = 0;    // along Y, from y = 0
+  double center = 0;  // lateral offset of the dovetail centre line from the middle of the stock
+  double length = 0;  // along Y, from y = 0
   Tolerance tolerance;  // on the width
   Ends ends = Ends::Open;
   double chamfer = 0;  // top edge break

@@ -1,11 +1,11 @@
+#include <dovetailor/dovetail_section.hpp>
+#include <dovetailor/job_reader.hpp>
+#include <dovetailor/pin_gauge.hpp>
+
 #include <cmath>
 #include <set>
 
 #include <fmt/format.h>
-
-#include <dovetailor/dovetail_section.hpp>
-#include <dovetailor/job_reader.hpp>
-#include <dovetailor/pin_gauge.hpp>
 
 #include "toml_fields.hpp"
 
@@ -114,8 +114,8 @@ class JobReader {
   void read_dovetail(TableReader& top) {
     TableReader t(required_table(top, "dovetail"), "dovetail", file_);
     auto& d = job_.dovetail;
-    auto type = t.choice<DovetailType>(
-        "type", {{"male", DovetailType::Male}, {"female", DovetailType::Female}});
+    auto type = t.choice<DovetailType>("type",
+                                       {{"male", DovetailType::Male}, {"female", DovetailType::Female}});
     if (!type) t.fail("type", "missing; give type = \"male\" or \"female\"");
     d.type = *type;
     d.angle = t.required_number("angle", 30, 75);
@@ -128,23 +128,22 @@ class JobReader {
                                               {"left", AngledSides::Left},
                                               {"right", AngledSides::Right}})
                   .value_or(AngledSides::Both);
-    d.center = to_mm(
-        t.number("center", -largest_length(job_.units), largest_length(job_.units)).value_or(0),
-        job_.units);
+    d.center = to_mm(t.number("center", -largest_length(job_.units), largest_length(job_.units))
+                         .value_or(0),
+                     job_.units);
     d.length = length(t, "length", 0, false, job_.stock.length);
     if (t.has("length") && d.length <= 0) t.fail("length", "must be greater than zero");
     if (d.length > job_.stock.length + 1e-9)
       t.fail("length", "is longer than the stock (stock.size[1])");
     d.tolerance = default_tolerance(d.type, job_.units);
-    if (auto band =
-            t.numbers("tolerance", 2, -largest_length(job_.units), largest_length(job_.units))) {
+    if (auto band = t.numbers("tolerance", 2, -largest_length(job_.units), largest_length(job_.units))) {
       if ((*band)[0] >= (*band)[1])
         t.fail("tolerance", "the lower limit must be below the upper, as [lower, upper]");
       d.tolerance = {to_mm((*band)[0], job_.units), to_mm((*band)[1], job_.units)};
     }
-    d.ends = t.choice<Ends>(
-                  "ends",
-                  {{"open", Ends::Open}, {"front-open", Ends::FrontOpen}, {"closed", Ends::Closed}})
+    d.ends = t.choice<Ends>("ends", {{"open", Ends::Open},
+                                     {"front-open", Ends::FrontOpen},
+                                     {"closed", Ends::Closed}})
                  .value_or(Ends::Open);
     d.chamfer = length(t, "chamfer", 0, false, 0);
     if (d.chamfer >= d.depth) t.fail("chamfer", "must be smaller than the depth");
@@ -162,9 +161,8 @@ class JobReader {
     gib.thickness = positive_length(t, "thickness");
     gib.taper = t.number("taper", 0, 1000).value_or(0);
     if (gib.taper != 0 && gib.taper < 10)
-      t.fail("taper",
-             "give 0 for a parallel gib or N >= 10 for a taper of 1:N (1:50 to 1:100 "
-             "is usual)");
+      t.fail("taper", "give 0 for a parallel gib or N >= 10 for a taper of 1:N (1:50 to 1:100 "
+                      "is usual)");
     const auto sides = job_.dovetail.sides;
     if ((sides == AngledSides::Left && gib.side == Side::Right) ||
         (sides == AngledSides::Right && gib.side == Side::Left))
@@ -185,8 +183,8 @@ class JobReader {
       tool.number = static_cast<int>(*number);
       if (!numbers.insert(tool.number).second)
         t.fail("number", fmt::format("tool number {} is used twice", tool.number));
-      auto kind = t.choice<ToolKind>(
-          "kind", {{"end-mill", ToolKind::EndMill}, {"dovetail", ToolKind::Dovetail}});
+      auto kind = t.choice<ToolKind>("kind", {{"end-mill", ToolKind::EndMill},
+                                              {"dovetail", ToolKind::Dovetail}});
       if (!kind) t.fail("kind", "missing; give kind = \"end-mill\" or \"dovetail\"");
       tool.kind = *kind;
       tool.diameter = positive_length(t, "diameter");
@@ -194,8 +192,8 @@ class JobReader {
       if (!flutes) t.fail("flutes", "missing; give the number of flutes, 1 to 32");
       tool.flutes = static_cast<int>(*flutes);
       tool.flute_length = positive_length(t, "flute_length");
-      auto material = t.choice<ToolMaterial>(
-          "material", {{"hss", ToolMaterial::Hss}, {"carbide", ToolMaterial::Carbide}});
+      auto material = t.choice<ToolMaterial>("material", {{"hss", ToolMaterial::Hss},
+                                                          {"carbide", ToolMaterial::Carbide}});
       if (!material) t.fail("material", "missing; give material = \"hss\" or \"carbide\"");
       tool.material = *material;
       const bool dovetail = tool.kind == ToolKind::Dovetail;
@@ -210,13 +208,11 @@ class JobReader {
         tool.corner_radius = length(t, "corner_radius", 0, false, 0);
         const double small = tool.diameter - 2 * tool.flute_length * cot_deg(tool.angle);
         if (small <= 0)
-          t.fail("flute_length",
-                 "the cone would close before the flute length ends; check "
-                 "diameter, angle and flute_length");
+          t.fail("flute_length", "the cone would close before the flute length ends; check "
+                                 "diameter, angle and flute_length");
         if (tool.neck_diameter > small + 1e-9)
-          t.fail("neck_diameter",
-                 "must be no larger than the small diameter at the top of the "
-                 "flutes (diameter - 2 * flute_length * cot(angle))");
+          t.fail("neck_diameter", "must be no larger than the small diameter at the top of the "
+                                  "flutes (diameter - 2 * flute_length * cot(angle))");
         if (tool.corner_radius >= tool.flute_length)
           t.fail("corner_radius", "must be smaller than the flute length");
       }
@@ -251,9 +247,9 @@ class JobReader {
     const auto* table = top.table("machine");
     if (!table) return;
     TableReader t(*table, "machine", file_);
-    job_.machine.kind =
-        t.choice<MachineKind>("kind", {{"cnc", MachineKind::Cnc}, {"manual", MachineKind::Manual}})
-            .value_or(MachineKind::Cnc);
+    job_.machine.kind = t.choice<MachineKind>("kind", {{"cnc", MachineKind::Cnc},
+                                                       {"manual", MachineKind::Manual}})
+                            .value_or(MachineKind::Cnc);
     job_.machine.max_rpm = positive_number(t, "max_rpm", largest_rpm, "rev/min");
     job_.machine.max_feed = positive_feed(t, "max_feed");
     t.reject_unknown();
@@ -297,7 +293,8 @@ class JobReader {
     }
   }
 
-  std::vector<std::string> pin_problems_for(const DovetailSection& section, double corner_radius) {
+  std::vector<std::string> pin_problems_for(const DovetailSection& section,
+                                            double corner_radius) {
     return pin_problems(section, job_.gauge->pin_diameter, corner_radius, job_.units);
   }
 
@@ -311,8 +308,6 @@ class JobReader {
 
 }  // namespace
 
-Job read_job(std::string_view text, const std::string& file) {
-  return JobReader(text, file).read();
-}
+Job read_job(std::string_view text, const std::string& file) { return JobReader(text, file).read(); }
 
 }  // namespace dovetailor

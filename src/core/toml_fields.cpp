@@ -10,26 +10,16 @@ namespace {
 
 std::string type_name(const toml::node& node) {
   switch (node.type()) {
-    case toml::node_type::string:
-      return "a string";
-    case toml::node_type::integer:
-      return "an integer";
-    case toml::node_type::floating_point:
-      return "a number";
-    case toml::node_type::boolean:
-      return "true/false";
-    case toml::node_type::table:
-      return "a table";
-    case toml::node_type::array:
-      return "an array";
-    case toml::node_type::date:
-      return "a date";
-    case toml::node_type::time:
-      return "a time";
-    case toml::node_type::date_time:
-      return "a date-time";
-    default:
-      return "nothing";
+    case toml::node_type::string: return "a string";
+    case toml::node_type::integer: return "an integer";
+    case toml::node_type::floating_point: return "a number";
+    case toml::node_type::boolean: return "true/false";
+    case toml::node_type::table: return "a table";
+    case toml::node_type::array: return "an array";
+    case toml::node_type::date: return "a date";
+    case toml::node_type::time: return "a time";
+    case toml::node_type::date_time: return "a date-time";
+    default: return "nothing";
   }
 }
 
@@ -90,8 +80,7 @@ std::optional<double> TableReader::number(std::string_view key, double min, doub
     fail(key, "expected a number, found " + type_name(*value));
   }
   if (!std::isfinite(x)) fail(key, "must be a finite number, " + range_text(min, max));
-  if (x < min || x > max)
-    fail(key, fmt::format("{:g} is out of range: must be {}", x, range_text(min, max)));
+  if (x < min || x > max) fail(key, fmt::format("{:g} is out of range: must be {}", x, range_text(min, max)));
   return x;
 }
 
@@ -106,8 +95,7 @@ std::optional<long long> TableReader::integer(std::string_view key, long long mi
   if (!value) return std::nullopt;
   auto i = value->value_exact<int64_t>();
   if (!i) fail(key, "expected a whole number, found " + type_name(*value));
-  if (*i < min || *i > max)
-    fail(key, fmt::format("{} is out of range: must be from {} to {}", *i, min, max));
+  if (*i < min || *i > max) fail(key, fmt::format("{} is out of range: must be from {} to {}", *i, min, max));
   return *i;
 }
 
@@ -163,9 +151,8 @@ std::optional<std::vector<double>> TableReader::numbers(std::string_view key, st
                        field(key));
     }
     if (!std::isfinite(x) || x < min || x > max)
-      throw InputError(
-          fmt::format("{:g} is out of range: each must be {}", x, range_text(min, max)),
-          place_of(item, file_), field(key));
+      throw InputError(fmt::format("{:g} is out of range: each must be {}", x, range_text(min, max)),
+                       place_of(item, file_), field(key));
     out.push_back(x);
   }
   return out;
@@ -184,8 +171,7 @@ std::vector<const toml::table*> TableReader::tables(std::string_view key) {
   std::vector<const toml::table*> out;
   if (!value) return out;
   const auto* array = value->as_array();
-  if (!array)
-    fail(key, fmt::format("expected one or more [[{}]] tables, found {}", key, type_name(*value)));
+  if (!array) fail(key, fmt::format("expected one or more [[{}]] tables, found {}", key, type_name(*value)));
   for (const auto& item : *array) {
     const auto* t = item.as_table();
     if (!t)
@@ -201,9 +187,10 @@ void TableReader::reject_unknown() const {
     if (std::find(known_.begin(), known_.end(), key.str()) != known_.end()) continue;
     std::string valid;
     for (const auto& k : known_) valid += (valid.empty() ? "" : ", ") + k;
-    throw InputError("unknown key" + (path_.empty() ? std::string() : " in [" + path_ + "]") +
-                         (valid.empty() ? std::string() : "; valid keys here are: " + valid),
-                     place_of(value, file_), field(key.str()));
+    throw InputError(
+        "unknown key" + (path_.empty() ? std::string() : " in [" + path_ + "]") +
+            (valid.empty() ? std::string() : "; valid keys here are: " + valid),
+        place_of(value, file_), field(key.str()));
   }
 }
 
