@@ -126,6 +126,13 @@ struct Tool {
   std::optional<double> shank_diameter;
   std::optional<double> stickout;  // gauge length, holder face to tip
   std::optional<double> holder_diameter;
+  // Optional user overrides of the computed cutting data (see cutting_data.hpp):
+  // spindle speed in rev/min, feed in mm/min, chip load (feed per tooth as
+  // programmed, no chip-thinning increase applied) in mm. A feed overrides a
+  // chip load; the reader refuses both on one tool.
+  std::optional<double> rpm;
+  std::optional<double> feed;
+  std::optional<double> chip_load;
 
   bool operator==(const Tool&) const = default;
 };
@@ -139,6 +146,9 @@ struct Gauge {
 
 struct Machine {
   MachineKind kind = MachineKind::Cnc;
+  // Limits the cutting data is capped at: spindle rev/min, feed in mm/min.
+  std::optional<double> max_rpm;
+  std::optional<double> max_feed;
 
   bool operator==(const Machine&) const = default;
 };

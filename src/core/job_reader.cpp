@@ -18,6 +18,9 @@ using detail::TableReader;
 // rather than planned: no dovetail slide is 100 in long or wide.
 double largest_length(Units units) { return units == Units::Inch ? 100.0 : 2500.0; }
 
+// Spindle speeds above this are refused as typing errors.
+constexpr double largest_rpm = 200000;
+
 class JobReader {
  public:
   JobReader(std::string_view text, const std::string& file)
@@ -70,6 +73,22 @@ class JobReader {
       return std::nullopt;
     }
     return positive_length(t, key);
+  }
+
+  // An optional number above zero, at most `max`.
+  std::optional<double> positive_number(TableReader& t, std::string_view key, double max,
+                                        std::string_view unit) {
+    auto value = t.number(key, 0, max);
+    if (value && *value <= 0) t.fail(key, fmt::format("must be greater than zero ({})", unit));
+    return value;
+  }
+
+  // An optional feed rate, in the file's length units per minute, as mm/min.
+  std::optional<double> positive_feed(TableReader& t, std::string_view key) {
+    const double max = 100 * largest_length(job_.units);
+    auto value = positive_number(t, key, max, fmt::format("{}/min", unit_name(job_.units)));
+    if (!value) return std::nullopt;
+    return to_mm(*value, job_.units);
   }
 
   void read_part(TableReader& top) {
@@ -271,6 +290,11 @@ class JobReader {
       tool.holder_diameter = optional_positive_length(t, "holder_diameter");
       if (tool.stickout && *tool.stickout < tool.flute_length)
         t.fail("stickout", "is shorter than the flute length");
+      tool.rpm = positive_number(t, "rpm", largest_rpm, "rev/min");
+      tool.feed = positive_feed(t, "feed");
+      tool.chip_load = optional_positive_length(t, "chip_load");
+      if (tool.feed && tool.chip_load)
+        t.fail("chip_load", "give feed or chip_load for a tool, not both");
       t.reject_unknown();
       job_.tools.push_back(tool);
     }
@@ -295,6 +319,8 @@ class JobReader {
     job_.machine.kind =
         t.choice<MachineKind>("kind", {{"cnc", MachineKind::Cnc}, {"manual", MachineKind::Manual}})
             .value_or(MachineKind::Cnc);
+    job_.machine.max_rpm = positive_number(t, "max_rpm", largest_rpm, "rev/min");
+    job_.machine.max_feed = positive_feed(t, "max_feed");
     t.reject_unknown();
   }
 

@@ -127,6 +127,22 @@ std::optional<bool> TableReader::flag(std::string_view key) {
   return b->get();
 }
 
+std::optional<std::vector<std::string>> TableReader::texts(std::string_view key) {
+  const auto* value = node(key);
+  if (!value) return std::nullopt;
+  const auto* array = value->as_array();
+  if (!array) fail(key, "expected an array of strings in quotes, found " + type_name(*value));
+  std::vector<std::string> out;
+  for (const auto& item : *array) {
+    const auto* s = item.as_string();
+    if (!s)
+      throw InputError("expected a string in quotes, found " + type_name(item),
+                       place_of(item, file_), field(key));
+    out.push_back(s->get());
+  }
+  return out;
+}
+
 std::optional<std::vector<double>> TableReader::numbers(std::string_view key, std::size_t count,
                                                         double min, double max) {
   const auto* value = node(key);

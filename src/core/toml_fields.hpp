@@ -38,6 +38,8 @@ class TableReader {
   std::optional<long long> integer(std::string_view key, long long min, long long max);
   std::optional<std::string> text(std::string_view key);
   std::optional<bool> flag(std::string_view key);
+  // An array of strings (possibly empty).
+  std::optional<std::vector<std::string>> texts(std::string_view key);
   // An array of exactly `count` finite numbers each within [min, max].
   std::optional<std::vector<double>> numbers(std::string_view key, std::size_t count, double min,
                                              double max);
