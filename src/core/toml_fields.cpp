@@ -179,6 +179,14 @@ const toml::table* TableReader::table(std::string_view key) {
   return t;
 }
 
+const toml::array* TableReader::array(std::string_view key) {
+  const auto* value = node(key);
+  if (!value) return nullptr;
+  const auto* a = value->as_array();
+  if (!a) fail(key, "expected an array [ ... ], found " + type_name(*value));
+  return a;
+}
+
 std::vector<const toml::table*> TableReader::tables(std::string_view key) {
   const auto* value = node(key);
   std::vector<const toml::table*> out;

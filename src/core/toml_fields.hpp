@@ -44,6 +44,8 @@ class TableReader {
   std::optional<std::vector<double>> numbers(std::string_view key, std::size_t count, double min,
                                              double max);
   const toml::table* table(std::string_view key);
+  // An array of any items (the caller checks them, with place_of for messages).
+  const toml::array* array(std::string_view key);
   // An array of tables, written [[key]] in the file; empty when absent.
   std::vector<const toml::table*> tables(std::string_view key);
 
