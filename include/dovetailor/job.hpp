@@ -77,7 +77,7 @@ struct Strategy {
   std::optional<std::vector<CheckpointAt>> checkpoints;  // where to stop and measure
   bool spring_pass = true;
   bool optional_stops = false;  // M1 instead of M0 at checkpoints
-  std::optional<int> end_mill;        // T numbers, when the job lists several
+  std::optional<int> end_mill;  // T numbers, when the job lists several
   std::optional<int> dovetail_cutter;
 
   bool operator==(const Strategy&) const = default;

@@ -38,10 +38,10 @@ struct Move {
 };
 
 enum class PassRole {
-  Rough,        // end mill clearing, or dovetail cutter stepping toward a flank
-  SemiFinish,   // takes the flank to the last, light cut
-  Finish,       // lands the flank on size
-  Spring,       // same position again, no added stock: takes out the spring of the cutter
+  Rough,       // end mill clearing, or dovetail cutter stepping toward a flank
+  SemiFinish,  // takes the flank to the last, light cut
+  Finish,      // lands the flank on size
+  Spring,      // same position again, no added stock: takes out the spring of the cutter
 };
 
 // One cut along the slide (Y). `x` is the tool axis at y = 0 (for a tapered
@@ -60,7 +60,7 @@ struct Pass {
   double stock_left = 0;   // lateral stock left on `side`'s flank (or wall) after the pass
   double feed = 0;         // mm/min
   double rpm = 0;
-  double deflection = 0;   // predicted tool deflection at the flutes, mm
+  double deflection = 0;  // predicted tool deflection at the flutes, mm
   MillingMode mode = MillingMode::Both;
   std::vector<Move> moves;  // the whole path of the pass, from the safe height and back
 
@@ -106,14 +106,14 @@ struct Checkpoint {
 };
 
 struct Plan {
-  Job job;                  // as planned (a mate is already resolved into the width)
-  DovetailSection target;   // the finished section
+  Job job;                 // as planned (a mate is already resolved into the width)
+  DovetailSection target;  // the finished section
   PinReading final_reading;
-  double safe_z = 0;        // rapids at or above this height
-  double clearance = 0;     // how far outside the stock the tools enter and leave
+  double safe_z = 0;     // rapids at or above this height
+  double clearance = 0;  // how far outside the stock the tools enter and leave
   std::vector<Operation> operations;
   std::vector<Checkpoint> checkpoints;
-  std::vector<std::string> notes;     // derivations, choices stated in words
+  std::vector<std::string> notes;  // derivations, choices stated in words
   std::vector<std::string> warnings;
 
   bool operator==(const Plan&) const = default;

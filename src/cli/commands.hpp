@@ -9,5 +9,6 @@ namespace dovetailor::cli {
 // callback. Errors for the user are thrown as InputError and caught in main.
 void setup_pins(CLI::App& app);
 void setup_fit(CLI::App& app);
+void setup_plan(CLI::App& app);
 
 }  // namespace dovetailor::cli

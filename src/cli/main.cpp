@@ -17,6 +17,7 @@ int main(int argc, char** argv) {
   app.set_version_flag("--version", "dovetailor 0.1.0");
   dovetailor::cli::setup_pins(app);
   dovetailor::cli::setup_fit(app);
+  dovetailor::cli::setup_plan(app);
   try {
     app.parse(argc, argv);
   } catch (const CLI::Success& e) {

@@ -52,8 +52,8 @@ double reading_for_clearance(const MeasuredPart& other, const MeasuredPart& targ
                              int angled_flanks, double clearance) {
   const double other_bottom = functional_width_bottom(other, angled_flanks, angle);
   if (other.type == DovetailType::Female) {
-    const double female_top = width_top_from_bottom(DovetailType::Female, other_bottom,
-                                                    other.depth, angle, angled_flanks);
+    const double female_top = width_top_from_bottom(DovetailType::Female, other_bottom, other.depth,
+                                                    angle, angled_flanks);
     return reading_of_functional(target, angled_flanks, angle, female_top - clearance);
   }
   const double female_bottom = width_bottom_from_top(DovetailType::Female, other_bottom + clearance,

@@ -168,8 +168,8 @@ class JobReader {
   void read_mate(const toml::table& table) {
     TableReader t(table, "dovetail.mate", file_);
     Mate mate;
-    auto type = t.choice<DovetailType>("type",
-                                       {{"male", DovetailType::Male}, {"female", DovetailType::Female}});
+    auto type = t.choice<DovetailType>(
+        "type", {{"male", DovetailType::Male}, {"female", DovetailType::Female}});
     if (!type) t.fail("type", "missing; the measured mating part is \"male\" or \"female\"");
     if (*type == job_.dovetail.type)
       t.fail("type", "the mate must be of the other type than this part");
@@ -205,8 +205,8 @@ class JobReader {
           show(m.reading), show(m.pin_diameter), show(mate_bottom), show(m.clearance),
           show(d.width));
     } else {
-      const double mouth = width_top_from_bottom(DovetailType::Female, mate_bottom, m.depth,
-                                                 d.angle, n);
+      const double mouth =
+          width_top_from_bottom(DovetailType::Female, mate_bottom, m.depth, d.angle, n);
       d.width = mouth - m.clearance;
       d.width_at = WidthAt::Bottom;
       d.mate_derivation = fmt::format(
@@ -330,25 +330,31 @@ class JobReader {
     TableReader t(*table, "strategy", file_);
     auto& st = job_.strategy;
     const double small = largest_length(job_.units) / 100;  // 1 in or 25 mm
-    if (auto v = t.number("finish_allowance", 0, small)) st.finish_allowance = to_mm(*v, job_.units);
+    if (auto v = t.number("finish_allowance", 0, small))
+      st.finish_allowance = to_mm(*v, job_.units);
     if (auto v = t.number("rough_allowance", 0, small)) st.rough_allowance = to_mm(*v, job_.units);
     if (auto v = t.number("floor_allowance", 0, small)) st.floor_allowance = to_mm(*v, job_.units);
-    st.direction = t.choice<MillingMode>("direction", {{"conventional", MillingMode::Conventional},
-                                                       {"climb", MillingMode::Climb}});
+    st.direction = t.choice<MillingMode>(
+        "direction", {{"conventional", MillingMode::Conventional}, {"climb", MillingMode::Climb}});
     if (t.has("checkpoints")) {
       const auto* array = table->get("checkpoints")->as_array();
-      if (!array) t.fail("checkpoints", "expected an array such as [\"after-roughing\", \"after-finish\"]");
+      if (!array)
+        t.fail("checkpoints", "expected an array such as [\"after-roughing\", \"after-finish\"]");
       std::vector<CheckpointAt> at;
       for (const auto& item : *array) {
         const auto* word = item.as_string();
         const std::string w = word ? word->get() : "";
-        if (w == "after-roughing") at.push_back(CheckpointAt::AfterRoughing);
-        else if (w == "before-finish") at.push_back(CheckpointAt::BeforeFinish);
-        else if (w == "after-finish") at.push_back(CheckpointAt::AfterFinish);
+        if (w == "after-roughing")
+          at.push_back(CheckpointAt::AfterRoughing);
+        else if (w == "before-finish")
+          at.push_back(CheckpointAt::BeforeFinish);
+        else if (w == "after-finish")
+          at.push_back(CheckpointAt::AfterFinish);
         else
-          throw InputError("each checkpoint is \"after-roughing\", \"before-finish\" or "
-                           "\"after-finish\"",
-                           detail::place_of(item, file_), "strategy.checkpoints");
+          throw InputError(
+              "each checkpoint is \"after-roughing\", \"before-finish\" or "
+              "\"after-finish\"",
+              detail::place_of(item, file_), "strategy.checkpoints");
       }
       st.checkpoints = at;
     }

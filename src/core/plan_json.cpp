@@ -1,0 +1,106 @@
+#include <cmath>
+
+#include <nlohmann/json.hpp>
+
+#include <dovetailor/plan_report.hpp>
+
+namespace dovetailor {
+namespace {
+
+double len(double mm, Units u) {
+  const double scale = std::pow(10.0, length_decimals(u) + 2);
+  return std::round(from_mm(mm, u) * scale) / scale;
+}
+
+const char* role_key(PassRole r) {
+  switch (r) {
+    case PassRole::Rough:
+      return "rough";
+    case PassRole::SemiFinish:
+      return "semi-finish";
+    case PassRole::Finish:
+      return "finish";
+    case PassRole::Spring:
+      return "spring";
+  }
+  return "";
+}
+
+const char* mode_key(MillingMode m) {
+  switch (m) {
+    case MillingMode::Conventional:
+      return "conventional";
+    case MillingMode::Climb:
+      return "climb";
+    case MillingMode::Both:
+      return "both";
+  }
+  return "";
+}
+
+}  // namespace
+
+std::string plan_json(const Plan& plan) {
+  const Units u = plan.job.units;
+  nlohmann::json j;
+  j["units"] = unit_name(u);
+  j["part"] = plan.job.part.name;
+  j["type"] = plan.target.type == DovetailType::Female ? "female" : "male";
+  j["angle"] = plan.target.angle;
+  j["depth"] = len(plan.target.depth, u);
+  j["width_bottom"] = len(plan.target.width_bottom(), u);
+  j["width_top"] = len(plan.target.width_top(), u);
+  j["pin_diameter"] = len(plan.final_reading.pin_diameter, u);
+  j["final_reading"] = len(plan.final_reading.value, u);
+  j["safe_z"] = len(plan.safe_z, u);
+  auto& ops = j["operations"] = nlohmann::json::array();
+  for (const auto& op : plan.operations) {
+    nlohmann::json o;
+    o["title"] = op.title;
+    o["tool"] = op.tool;
+    o["entry"] = op.entry;
+    o["rpm"] = std::round(op.rpm);
+    o["feed"] = len(op.feed, u);
+    o["finish_feed"] = len(op.finish_feed, u);
+    auto& passes = o["passes"] = nlohmann::json::array();
+    for (const auto& p : op.passes) {
+      nlohmann::json q;
+      q["number"] = p.number;
+      q["tool"] = p.tool;
+      q["role"] = role_key(p.role);
+      q["side"] = p.side ? (*p.side == Side::Left ? "left" : "right") : "centre";
+      q["x"] = len(p.x, u);
+      q["taper_slope"] = p.taper_slope;
+      q["z"] = len(p.z, u);
+      q["radial_step"] = len(p.radial_step, u);
+      q["stock_left"] = len(p.stock_left, u);
+      q["feed"] = len(p.feed, u);
+      q["rpm"] = std::round(p.rpm);
+      q["deflection"] = len(p.deflection, u);
+      q["mode"] = mode_key(p.mode);
+      passes.push_back(q);
+    }
+    ops.push_back(o);
+  }
+  auto& cps = j["checkpoints"] = nlohmann::json::array();
+  for (const auto& c : plan.checkpoints) {
+    nlohmann::json k;
+    k["name"] = c.name;
+    k["after_pass"] = c.after_pass;
+    k["pin_diameter"] = len(c.expected.pin_diameter, u);
+    k["expected_reading"] = len(c.expected.value, u);
+    k["final_reading"] = len(c.final_reading.value, u);
+    k["remaining_per_flank"] = len(c.remaining_per_flank, u);
+    k["remaining_normal"] = len(c.remaining_normal, u);
+    k["correction_per_reading"] = c.correction_per_reading;
+    k["expected_depth"] = len(c.expected_depth, u);
+    if (c.reference_reading) k["reference_reading"] = len(*c.reference_reading, u);
+    k["rule"] = correction_rule(plan, c);
+    cps.push_back(k);
+  }
+  j["notes"] = plan.notes;
+  j["warnings"] = plan.warnings;
+  return j.dump(2);
+}
+
+}  // namespace dovetailor

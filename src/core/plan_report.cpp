@@ -1,0 +1,245 @@
+#include <cmath>
+
+#include <fmt/format.h>
+
+#include <dovetailor/plan_report.hpp>
+
+namespace dovetailor {
+namespace {
+
+struct Show {
+  Units u;
+  std::string num(double mm) const {
+    std::string s = fmt::format("{:.{}f}", from_mm(mm, u), length_decimals(u));
+    if (s.starts_with("-") && s.find_first_not_of("-0.") == std::string::npos) s.erase(0, 1);
+    return s;
+  }
+  std::string len(double mm) const { return num(mm) + " " + std::string(unit_symbol(u)); }
+  std::string feed(double mm_per_min) const {
+    return u == Units::Inch ? fmt::format("{:.1f}", from_mm(mm_per_min, u))
+                            : fmt::format("{:.0f}", mm_per_min);
+  }
+  std::string feed_unit() const { return u == Units::Inch ? "in/min" : "mm/min"; }
+};
+
+std::string role_name(PassRole r) {
+  switch (r) {
+    case PassRole::Rough:
+      return "rough";
+    case PassRole::SemiFinish:
+      return "semi";
+    case PassRole::Finish:
+      return "finish";
+    case PassRole::Spring:
+      return "spring";
+  }
+  return "";
+}
+
+std::string side_name(std::optional<Side> s) {
+  if (!s) return "centre";
+  return *s == Side::Left ? "left" : "right";
+}
+
+std::string mode_name(MillingMode m) {
+  switch (m) {
+    case MillingMode::Conventional:
+      return "conv";
+    case MillingMode::Climb:
+      return "climb";
+    case MillingMode::Both:
+      return "both";
+  }
+  return "";
+}
+
+std::string method_words(const PinReading& r) {
+  switch (r.method) {
+    case ReadingMethod::OverPins:
+      return "over 2 pins";
+    case ReadingMethod::BetweenPins:
+      return "between 2 pins";
+    case ReadingMethod::SquareSideToPin:
+      return "from the square side to 1 pin";
+  }
+  return "";
+}
+
+std::string tool_line(const Tool& t, const Operation* op, const Show& s) {
+  std::string what =
+      t.kind == ToolKind::EndMill
+          ? fmt::format("end mill {} dia, {} flutes, {}", s.len(t.diameter), t.flutes,
+                        t.material == ToolMaterial::Hss ? "HSS" : "carbide")
+          : fmt::format("dovetail cutter {} dia x {:g} deg, {} flutes, neck {}, {}",
+                        s.len(t.diameter), t.angle, t.flutes, s.num(t.neck_diameter),
+                        t.material == ToolMaterial::Hss ? "HSS" : "carbide");
+  std::string line = fmt::format("  T{:<3} {}", t.number, what);
+  if (op)
+    line += fmt::format("\n        {:.0f} rev/min; feed {} {}, finishing {} {}", op->rpm,
+                        s.feed(op->feed), s.feed_unit(), s.feed(op->finish_feed), s.feed_unit());
+  return line;
+}
+
+// Words of `text` in lines of at most `width` columns, the first starting
+// with `first`, the rest with `rest`.
+std::string wrap(const std::string& text, const std::string& first, const std::string& rest,
+                 std::size_t width = 80) {
+  std::string out, row = first;
+  bool empty = true;
+  for (std::size_t start = 0; start <= text.size();) {
+    std::size_t end = text.find(' ', start);
+    if (end == std::string::npos) end = text.size();
+    const std::string word = text.substr(start, end - start);
+    start = end + 1;
+    if (word.empty()) continue;
+    if (!empty && row.size() + 1 + word.size() > width) {
+      out += row + "\n";
+      row = rest;
+      empty = true;
+    }
+    row += (empty ? "" : " ") + word;
+    empty = false;
+  }
+  return out + row + "\n";
+}
+
+}  // namespace
+
+const std::string& safety_cautions() {
+  static const std::string text =
+      "CAUTION: these figures are advice, not a guarantee. Verify every program by a\n"
+      "dry run above the work and in single block. Secure the work and the tool; use\n"
+      "guards and eye protection; measure only with the spindle stopped. Dovetail\n"
+      "cutters are fragile: never plunge them, take light cuts, clear the chips, and\n"
+      "never raise one while it is under the overhang. Follow your shop's rules and\n"
+      "the machine maker's instructions.\n";
+  return text;
+}
+
+std::string correction_rule(const Plan& plan, const Checkpoint& c) {
+  const Show s{plan.job.units};
+  const bool female = plan.target.type == DovetailType::Female;
+  const int n = plan.target.angled_flanks();
+  const std::string each = n == 2 ? "each flank" : "the angled flank";
+  const double unit = plan.job.units == Units::Inch ? to_mm(0.001, Units::Inch) : 0.01;
+  const double per = std::abs(c.correction_per_reading) * unit;
+  const auto& tol = plan.job.dovetail.tolerance;
+  if (c.remaining_per_flank <= 0) {
+    // After finishing: in tolerance, under size (trim), or over size.
+    const double low = c.expected.value + tol.lower, high = c.expected.value + tol.upper;
+    const double trim_from = female ? low : high;
+    return fmt::format(
+        "Good from {} to {}. A reading {} {} means stock is left: {} has {} to cut for every "
+        "{} of difference; take a trim pass. A reading {} {} is over size: stop and decide "
+        "with the mating part.",
+        s.num(low), s.len(high), female ? "below" : "above", s.len(trim_from), each, s.len(per),
+        s.len(unit), female ? "above" : "below", s.len(female ? high : low));
+  }
+  std::string rule = fmt::format(
+      "Every {} the reading is {} than {} leaves {} less on {} ({} more when it is {}).",
+      s.len(unit), female ? "larger" : "smaller", s.num(c.expected.value), s.len(per), each,
+      s.len(per), female ? "smaller" : "larger");
+  // remaining(error) = remaining + error * correction_per_reading reaches zero here.
+  const double at_size = c.expected.value - c.remaining_per_flank / c.correction_per_reading;
+  rule +=
+      fmt::format(" A reading {} {} means {} is already at size: stop, do not take the next pass.",
+                  female ? "at or above" : "at or below", s.len(at_size), each);
+  return rule;
+}
+
+std::string format_plan(const Plan& plan) {
+  const Job& job = plan.job;
+  const Show s{job.units};
+  const auto& t = plan.target;
+  const bool female = t.type == DovetailType::Female;
+  std::string out;
+  const auto line = [&](const std::string& text) { out += text + "\n"; };
+  line(fmt::format("Cutting plan: {}", job.part.name.empty() ? job.source : job.part.name));
+  out += wrap(fmt::format("{} dovetail {:g} deg, {} angled, depth {}; all lengths in {}.",
+                          female ? "Female" : "Male", t.angle,
+                          t.angled_flanks() == 2 ? "both flanks" : "one flank", s.len(t.depth),
+                          unit_name(job.units)),
+              "", "");
+  line(fmt::format("Width as cut: {} at the base plane, {} at the top plane.",
+                   s.len(t.width_bottom()), s.len(t.width_top())));
+  if (job.gauge)
+    out += wrap(fmt::format("Final reading {} of {}: {} (good from {} to {}).",
+                            method_words(plan.final_reading), s.len(job.gauge->pin_diameter),
+                            s.len(plan.final_reading.value),
+                            s.num(plan.final_reading.value + job.dovetail.tolerance.lower),
+                            s.len(plan.final_reading.value + job.dovetail.tolerance.upper)),
+                "", "");
+  line("");
+  out += safety_cautions();
+  line("");
+  line("Tools");
+  for (const auto& tool : job.tools) {
+    const Operation* op = nullptr;
+    for (const auto& o : plan.operations)
+      if (o.tool == tool.number) op = &o;
+    if (op) line(tool_line(tool, op, s));
+  }
+  int op_number = 0;
+  for (const auto& op : plan.operations) {
+    line("");
+    line(fmt::format("Operation {}: {} with T{}", ++op_number, op.title, op.tool));
+    out += wrap(fmt::format("Entry: {}.", op.entry), "  ", "    ");
+    line(fmt::format("  {:>4} {:<6} {:<6} {:>8} {:>8} {:>7} {:>7} {:>6} {:<5} {:>7}", "Pass",
+                     "Role", "Side", "X", "Z", "Step", "Left", "Feed", "Mode", "Bend"));
+    for (const auto& p : op.passes) {
+      line(fmt::format("  {:>4} {:<6} {:<6} {:>8} {:>8} {:>7} {:>7} {:>6} {:<5} {:>7}", p.number,
+                       role_name(p.role), side_name(p.side),
+                       s.num(p.x) + (p.taper_slope != 0 ? "*" : ""), s.num(p.z),
+                       s.num(p.radial_step), s.num(p.stock_left), s.feed(p.feed), mode_name(p.mode),
+                       p.deflection > 0 ? s.num(p.deflection) : "-"));
+      for (const auto& c : plan.checkpoints)
+        if (c.after_pass == p.number)
+          line(fmt::format("  ---- STOP: checkpoint \"{}\" (see below) ----", c.name));
+    }
+    bool taper = false;
+    for (const auto& p : op.passes) taper = taper || p.taper_slope != 0;
+    if (taper) line("  * X at the front end; the pass runs at the gib's taper along Y.");
+  }
+  line("");
+  out += wrap(fmt::format("X: tool axis; Z: tool tip; Step: new radial engagement; Left: "
+                          "stock left on that flank or wall; Feed in {}; Bend: predicted cutter "
+                          "deflection.",
+                          s.feed_unit()),
+              "  ", "  ");
+  int letter = 0;
+  for (const auto& c : plan.checkpoints) {
+    line("");
+    line(fmt::format("Checkpoint {}: {} (after pass {})", static_cast<char>('A' + letter++), c.name,
+                     c.after_pass));
+    line("  Stop the spindle, clear the chips, deburr the edges the pins touch.");
+    if (job.gauge) {
+      out += wrap(fmt::format("Measure {} of {}: expect {} (final {}).", method_words(c.expected),
+                              s.len(job.gauge->pin_diameter), s.len(c.expected.value),
+                              s.len(c.final_reading.value)),
+                  "  ", "  ");
+      if (c.reference_reading)
+        line(fmt::format("  Or with one pin on the right flank, from the left stock face: {}.",
+                         s.len(*c.reference_reading)));
+    }
+    line(fmt::format("  Stock left on {}: {} laterally ({} square to the flank).",
+                     t.angled_flanks() == 2 ? "each flank" : "the flank",
+                     s.len(c.remaining_per_flank), s.len(c.remaining_normal)));
+    line(fmt::format("  Depth from the top face: {}.", s.len(c.expected_depth)));
+    if (job.gauge) {
+      out += wrap(correction_rule(plan, c), "  ", "  ");
+    }
+  }
+  if (!plan.notes.empty()) {
+    line("");
+    line("Notes");
+    for (const auto& n : plan.notes) out += wrap(n, "  - ", "    ");
+  }
+  if (!plan.warnings.empty()) {
+    line("");
+    line("Warnings");
+    for (const auto& w : plan.warnings) out += wrap(w, "  ! ", "    ");
+  }
+  return out;
+}
+
+}  // namespace dovetailor

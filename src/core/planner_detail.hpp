@@ -1,0 +1,70 @@
+#pragma once
+
+// Shared by the planner's source files. Internal to the core library.
+
+#include <string>
+#include <vector>
+
+#include <dovetailor/material_table.hpp>
+#include <dovetailor/plan.hpp>
+
+namespace dovetailor::detail {
+
+struct PlanContext {
+  const Job& job;
+  const Material& material;
+  const Tool& end_mill;
+  const Tool& cutter;
+  DovetailSection target;  // at the front end (y = 0)
+  double safe_z = 0;       // rapids at or above
+  double near_z = 0;       // feed from here into the work
+  double clearance = 0;    // outside the stock ends and faces
+  double rough_allowance = 0;
+  double floor_allowance = 0;
+  double finish_allowance = 0;  // lateral per flank left by roughing
+  double last_cut = 0;          // lateral per flank left by the semi-finish pass
+  double rough_deflection_limit = 0;
+  double finish_deflection_limit = 0;
+  MillingMode mode = MillingMode::Climb;  // wanted on the flanks
+  std::vector<std::string>& warnings;
+  int next_pass = 1;
+
+  Units units() const { return job.units; }
+  bool female() const { return job.dovetail.type == DovetailType::Female; }
+  // A length for messages: "0.0100 in".
+  std::string show(double mm) const;
+};
+
+// Direction of a cut along the slide.
+enum class Along { Forward, Back };  // +Y, -Y
+
+// Which side of the tool touches the work when it works toward `side`'s flank.
+bool engages_plus_x(const PlanContext& ctx, Side side);
+
+// The direction that gives `mode` with the spindle turning clockwise (M3)
+// seen from above: on the tool's +X side the teeth move toward -Y, so feeding
+// +Y there is conventional milling.
+Along direction_for(bool plus_x_engaged, MillingMode mode);
+MillingMode mode_of(bool plus_x_engaged, Along along);
+
+// Fills pass.moves: from the safe height outside the stock, down outside the
+// work, the cut along Y (respecting the job's ends), out and up again.
+// `previous_x` is where the last pass on this line ran (front-open ends may
+// run in there and cut on the way out).
+void add_moves(const PlanContext& ctx, Pass& pass, double tool_radius, Along along,
+               double previous_x, double plunge_feed);
+
+// End-mill roughing (slot or shoulders, and a square wall's finish).
+std::vector<Operation> rough_operations(PlanContext& ctx);
+
+// The dovetail cutter's operation: undercut, semi-finish, finish, spring.
+Operation undercut_operation(PlanContext& ctx);
+
+// Lateral axis position of the dovetail cutter working `side`'s flank with
+// `stock` left, the tip at `tip_above_base` above the base plane, at y = 0.
+double cutter_axis_x(const PlanContext& ctx, Side side, double stock, double tip_above_base);
+
+// dx/dy of a flank in plan view: non-zero only for a tapered gib flank.
+double flank_taper_slope(const PlanContext& ctx, Side side);
+
+}  // namespace dovetailor::detail
