@@ -2,6 +2,7 @@
 
 // Helpers shared by the test files.
 
+#include <cstdlib>
 #include <string>
 
 #include <gtest/gtest.h>
@@ -28,6 +29,34 @@ void expect_input_error(Action&& action, std::initializer_list<std::string> part
 // A path under the source tree, from CMake (never the current directory).
 inline std::string source_path(const std::string& relative) {
   return std::string(DOVETAILOR_SOURCE_DIR) + "/" + relative;
+}
+
+}  // namespace dovetailor::testing
+
+#include <fstream>
+#include <sstream>
+
+namespace dovetailor::testing {
+
+// The text of a file under the source tree.
+inline std::string read_source_file(const std::string& relative) {
+  std::ifstream in(source_path(relative), std::ios::binary);
+  std::stringstream text;
+  text << in.rdbuf();
+  return text.str();
+}
+
+// Compares `actual` with the golden file (reviewed by eye). With
+// DOVETAILOR_UPDATE_GOLDEN=1 in the environment the file is rewritten
+// instead, so a deliberate change is one command and one diff to review.
+inline void expect_golden(const std::string& relative, const std::string& actual) {
+  if (std::getenv("DOVETAILOR_UPDATE_GOLDEN")) {
+    std::ofstream(source_path(relative), std::ios::binary) << actual;
+    return;
+  }
+  const std::string expected = read_source_file(relative);
+  EXPECT_EQ(actual, expected) << "golden file " << relative
+                              << " differs; review, then rerun with DOVETAILOR_UPDATE_GOLDEN=1";
 }
 
 }  // namespace dovetailor::testing

@@ -130,8 +130,8 @@ std::string correction_rule(const Plan& plan, const Checkpoint& c) {
     const double trim_from = female ? low : high;
     return fmt::format(
         "Good from {} to {}. A reading {} {} means stock is left: {} has {} to cut for every "
-        "{} of difference; take a trim pass. A reading {} {} is over size: stop and decide "
-        "with the mating part.",
+        "{} of difference; take a trim pass. A reading {} {} means the flanks are cut past "
+        "size: stop and decide with the mating part.",
         s.num(low), s.len(high), female ? "below" : "above", s.len(trim_from), each, s.len(per),
         s.len(unit), female ? "above" : "below", s.len(female ? high : low));
   }

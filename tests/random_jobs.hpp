@@ -1,0 +1,93 @@
+#pragma once
+
+// Random valid jobs for property tests: male and female, both or one angled
+// flank, angles 45 to 60 deg, inch and mm, with and without a gib, with an
+// end mill and a dovetail cutter sized to fit. Fixed seeds keep runs
+// repeatable. The numbers are invented; only their relations matter.
+
+#include <cmath>
+#include <random>
+
+#include <dovetailor/dovetail_section.hpp>
+#include <dovetailor/job.hpp>
+
+namespace dovetailor::testing {
+
+inline Job random_job(std::mt19937_64& rng) {
+  std::uniform_real_distribution<double> unit(0.0, 1.0);
+  const auto between = [&](double a, double b) { return a + (b - a) * unit(rng); };
+  Job job;
+  job.source = "random.toml";
+  job.units = unit(rng) < 0.5 ? Units::Inch : Units::Millimetre;
+  const double in = 25.4;
+  job.part = {"random part", unit(rng) < 0.5 ? "cast iron" : "6061"};
+  auto& d = job.dovetail;
+  d.type = unit(rng) < 0.5 ? DovetailType::Male : DovetailType::Female;
+  const double angles[] = {45, 50, 55, 60};
+  d.angle = angles[static_cast<int>(unit(rng) * 4) % 4];
+  const double r = unit(rng);
+  d.sides = r < 0.7 ? AngledSides::Both : (r < 0.85 ? AngledSides::Left : AngledSides::Right);
+  d.depth = between(0.15, 0.45) * in;
+  const double cot = 1 / std::tan(radians(d.angle));
+  const int n = d.sides == AngledSides::Both ? 2 : 1;
+  // The dovetail cutter: large diameter, flutes at least the depth, neck
+  // slim enough to clear the overhang (R - r_neck >= depth * cot a).
+  Tool cutter;
+  cutter.number = 2;
+  cutter.kind = ToolKind::Dovetail;
+  cutter.angle = d.angle;
+  cutter.flutes = 6;
+  cutter.material = unit(rng) < 0.7 ? ToolMaterial::Hss : ToolMaterial::Carbide;
+  cutter.flute_length = d.depth * between(1.05, 1.4);
+  const double run = cutter.flute_length * cot;
+  cutter.diameter = 2 * run + between(0.25, 0.5) * in;
+  const double small = cutter.diameter - 2 * run;
+  cutter.neck_diameter = std::min(small, cutter.diameter - 2 * d.depth * cot) * between(0.6, 0.95);
+  cutter.corner_radius = unit(rng) < 0.5 ? 0 : 0.005 * in;
+  // Widths: the female floor at least the cutter diameter plus room for the
+  // neck; the male root at least a pin's worth.
+  Tool mill;
+  mill.number = 1;
+  mill.kind = ToolKind::EndMill;
+  mill.flutes = 3;
+  mill.material = ToolMaterial::Carbide;
+  mill.flute_length = d.depth * between(1.2, 3.0);
+  if (d.type == DovetailType::Female) {
+    const double bottom = cutter.diameter + n * d.depth * cot + between(0.2, 1.0) * in;
+    d.width = bottom;
+    d.width_at = WidthAt::Bottom;
+    const double mouth = bottom - n * d.depth * cot;
+    mill.diameter = (mouth - 0.02 * in) * between(0.4, 0.95);
+  } else {
+    d.width = between(0.5, 1.5) * in;
+    d.width_at = WidthAt::Bottom;
+    mill.diameter = between(0.25, 0.75) * in;
+  }
+  if (unit(rng) < 0.3 && d.sides == AngledSides::Both) {
+    Gib gib;
+    gib.side = unit(rng) < 0.5 ? Side::Left : Side::Right;
+    gib.thickness = between(0.06, 0.12) * in;
+    gib.taper = unit(rng) < 0.5 ? 0 : 60 + 40 * unit(rng);
+    d.gib = gib;
+  }
+  const double top = width_top_from_bottom(d.type, d.width, d.depth, d.angle, n);
+  const double widest = std::max(d.width, top) + (d.gib ? 0.3 * in : 0);
+  job.stock = {widest + between(1.0, 2.0) * in, between(2.0, 6.0) * in, d.depth + between(0.3, 1.0) * in};
+  d.length = job.stock.length;
+  d.ends = Ends::Open;
+  if (unit(rng) < 0.2) {
+    d.ends = Ends::FrontOpen;
+    d.length = job.stock.length * 0.8;
+  }
+  d.tolerance = default_tolerance(d.type, job.units);
+  job.tools = {mill, cutter};
+  // A pin touching in the middle of the flank and clear of the corner radius.
+  Gauge g;
+  g.pin_diameter = std::max(0.5 * d.depth / (0.5 * (1 + std::cos(radians(d.angle)))),
+                            2.5 * cutter.corner_radius + 0.01);
+  job.gauge = g;
+  job.machine.kind = unit(rng) < 0.3 ? MachineKind::Manual : MachineKind::Cnc;
+  return job;
+}
+
+}  // namespace dovetailor::testing
