@@ -11,8 +11,12 @@ namespace {
 
 // Moves shorter than this along an axis are taken as not moving along it.
 constexpr double still = 1e-9;
-// Deepest refinement of a general line (2^-40 of the move: far below a grid step).
+// Deepest refinement of a curve or a general line (2^-40 of it: far below a
+// grid step), and the most chord profiles sampled along one general line.
 constexpr int deepest = 40;
+constexpr int most_samples = 1024;
+// Sample points kept before they are reduced to their hull.
+constexpr std::size_t most_points = 8192;
 
 double cross(const Point2& o, const Point2& a, const Point2& b) {
   return (a.x - o.x) * (b.z - o.z) - (a.z - o.z) * (b.x - o.x);
@@ -117,29 +121,22 @@ double support(const std::vector<Point2>& points, double ux, double uz) {
   return best;
 }
 
-// Whether `middle` lies within `slack` of the Minkowski mean of `a` and `b`,
-// tested in the edge normal directions of a and b and 16 even directions.
-bool within_mean(const std::vector<Point2>& middle, const std::vector<Point2>& a,
-                 const std::vector<Point2>& b, double slack) {
-  std::vector<std::array<double, 2>> directions;
-  for (int i = 0; i < 16; ++i) {
-    const double t = 2 * pi * i / 16;
-    directions.push_back({std::cos(t), std::sin(t)});
-  }
-  for (const auto* ring : {&a, &b}) {
-    for (std::size_t i = 0; i < ring->size(); ++i) {
-      const Point2& p = (*ring)[i];
-      const Point2& q = (*ring)[(i + 1) % ring->size()];
-      const double len = std::hypot(q.x - p.x, q.z - p.z);
-      if (len > 0) directions.push_back({(q.z - p.z) / len, -(q.x - p.x) / len});
+// Support values of a point set in 64 even directions (5.6 degrees apart).
+constexpr std::size_t directions = 64;
+using Supports = std::array<double, directions>;
+
+Supports supports_of(const std::vector<Point2>& points) {
+  static const auto unit = [] {
+    std::array<std::array<double, 2>, directions> d{};
+    for (std::size_t i = 0; i < directions; ++i) {
+      const double t = 2 * pi * static_cast<double>(i) / static_cast<double>(directions);
+      d[i] = {std::cos(t), std::sin(t)};
     }
-  }
-  for (const auto& u : directions) {
-    const double gap =
-        support(middle, u[0], u[1]) - (support(a, u[0], u[1]) + support(b, u[0], u[1])) / 2;
-    if (gap > slack) return false;
-  }
-  return true;
+    return d;
+  }();
+  Supports result;
+  for (std::size_t i = 0; i < directions; ++i) result[i] = support(points, unit[i][0], unit[i][1]);
+  return result;
 }
 
 struct Line {
@@ -153,42 +150,55 @@ struct Line {
   }
 };
 
-// The general line: hull of chord profiles sampled along the move.
+// The general line: hull of chord profiles sampled along the move. An
+// interval [ta, tb] needs no more samples when, in every direction, the most
+// the swept area can reach there -- the larger end value plus twice the
+// middle sample's rise over the chord, by concavity -- stays within
+// tolerance/2 of the hull of all samples so far (which only grows).
 class LineSampler {
  public:
   LineSampler(const BodySection& section, const Line& line, double tolerance)
-      : section_(section), line_(line), tolerance_(tolerance) {}
+      : section_(section), line_(line), tolerance_(tolerance) {
+    hull_.fill(-HUGE_VAL);
+  }
 
   Ring sweep(double t_lo, double t_hi, double t_mid) {
-    std::vector<double> splits{t_lo};
+    std::vector<double> splits;
+    constexpr int seeds = 16;
+    for (int i = 0; i <= seeds; ++i) splits.push_back(t_lo + (t_hi - t_lo) * i / seeds);
     if (t_mid > t_lo && t_mid < t_hi) splits.push_back(t_mid);
-    splits.push_back(t_hi);
-    std::vector<Point2> previous = at(splits.front());
-    append(previous);
-    for (std::size_t i = 1; i < splits.size(); ++i) {
-      std::vector<Point2> next = at(splits[i]);
-      refine(splits[i - 1], previous, splits[i], next, 0);
-      append(next);
-      previous = std::move(next);
-    }
+    std::sort(splits.begin(), splits.end());
+    std::vector<Supports> seen;
+    for (double t : splits) seen.push_back(at(t));
+    for (std::size_t i = 1; i < splits.size(); ++i)
+      refine(splits[i - 1], seen[i - 1], splits[i], seen[i], 0);
     return convex_hull(std::move(all_));
   }
 
  private:
-  std::vector<Point2> at(double t) const {
-    return profile_points(section_, line_.d(t), tolerance_, line_.tip(t));
-  }
-
-  void append(const std::vector<Point2>& points) {
+  // Profiles a quarter of the tolerance from the truth, so that their own
+  // chords cannot keep the test below failing however fine the samples.
+  Supports at(double t) {
+    ++samples_;
+    std::vector<Point2> points =
+        convex_hull(profile_points(section_, line_.d(t), tolerance_ / 4, line_.tip(t)));
+    const Supports s = supports_of(points);
+    for (std::size_t i = 0; i < directions; ++i) hull_[i] = std::max(hull_[i], s[i]);
     all_.insert(all_.end(), points.begin(), points.end());
+    if (all_.size() > most_points) all_ = convex_hull(std::move(all_));
+    return s;
   }
 
-  void refine(double ta, const std::vector<Point2>& a, double tb, const std::vector<Point2>& b,
-              int depth) {
+  void refine(double ta, const Supports& a, double tb, const Supports& b, int depth) {
+    if (depth >= deepest || samples_ >= most_samples) return;
     const double tm = (ta + tb) / 2;
-    std::vector<Point2> m = at(tm);
-    append(m);
-    if (depth >= deepest || within_mean(m, a, b, tolerance_ / 2)) return;
+    const Supports m = at(tm);
+    bool settled = true;
+    for (std::size_t i = 0; i < directions && settled; ++i) {
+      const double reach = std::max(a[i], b[i]) + 2 * (m[i] - (a[i] + b[i]) / 2);
+      settled = reach <= hull_[i] + tolerance_ / 2;
+    }
+    if (settled) return;
     refine(ta, a, tm, m, depth + 1);
     refine(tm, m, tb, b, depth + 1);
   }
@@ -196,6 +206,8 @@ class LineSampler {
   const BodySection& section_;
   const Line& line_;
   double tolerance_;
+  int samples_ = 0;
+  Supports hull_;
   std::vector<Point2> all_;
 };
 
