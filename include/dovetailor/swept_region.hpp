@@ -25,11 +25,15 @@ namespace dovetailor {
 //  - Move at constant y (in the plane, or in a parallel plane off by d): the
 //    chord profile swept along the segment, exactly the convex hull of its
 //    two end positions (Minkowski sum of a convex polygon with a segment).
-//  - Any other line: the convex hull of chord profiles at sample points on
-//    the move. Samples are refined until the profile at each interval's
-//    middle lies within tolerance/2 of the Minkowski mean of the profiles at
-//    its ends; the support function of a section of a convex set is concave
-//    along the move, so the hull then misses no more than `tolerance`.
+//  - Any other line: the convex hull of chord profiles sampled along the
+//    move (17 even samples, the point nearest the plane, then halving). The
+//    support function of a section of a convex set is concave along the
+//    move, so over an interval it exceeds its chord by at most twice the
+//    middle sample's rise; an interval is split until that bound stays
+//    within tolerance/2 of the hull of all samples, in 64 directions 5.6
+//    degrees apart. At most 1024 samples per part and move (reached only by
+//    a part grazing the plane along a long move, where the slivers missed
+//    are the thinnest).
 //  - Arcs: replaced by chords no further than `tolerance` from the arc, one
 //    convex piece per chord.
 // Where the chord profile is curved (cones and corner rounds off the axis
