@@ -3,16 +3,10 @@
 #include <vector>
 
 #include <dovetailor/job.hpp>
+#include <dovetailor/point.hpp>
 
 namespace dovetailor {
 
-// A point in the section plane across the slide: x lateral, z up (mm).
-struct Point2 {
-  double x = 0;
-  double z = 0;
-
-  bool operator==(const Point2&) const = default;
-};
 
 // One flank as cut, from its corner on the base plane to its edge on the top
 // plane. A square flank has base.x == top.x.

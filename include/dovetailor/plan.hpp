@@ -6,6 +6,7 @@
 
 #include <dovetailor/dovetail_section.hpp>
 #include <dovetailor/job.hpp>
+#include <dovetailor/point.hpp>
 #include <dovetailor/pin_gauge.hpp>
 
 namespace dovetailor {
@@ -15,13 +16,6 @@ namespace dovetailor {
 // checker's round-trip tests. Lengths in mm, work coordinates (see job.hpp),
 // feeds in mm/min, speeds in rev/min.
 
-struct Point3 {
-  double x = 0;
-  double y = 0;
-  double z = 0;
-
-  bool operator==(const Point3&) const = default;
-};
 
 enum class MoveKind {
   Rapid,  // G0: only at or above the safe height, or outside the stock

@@ -1,0 +1,92 @@
+#pragma once
+
+#include <string_view>
+#include <vector>
+
+#include <dovetailor/job.hpp>
+
+namespace dovetailor {
+
+// The whole tool as a body of revolution about the spindle axis, described
+// by its profile: radius as a function of height above the tip (mm). The
+// simulation sweeps this body, not just the cutting edge, so a neck, shank or
+// holder that rubs the work is found as well as flutes that cut too much.
+
+// Which part of the body a piece of profile belongs to. Only the flutes cut;
+// any other part touching the work is a collision.
+enum class BodyPart { Flutes, Neck, Shank, Holder };
+
+std::string_view body_part_name(BodyPart part);  // "flutes", "neck", "shank", "holder"
+
+// One point of a profile: `radius` at `height` above the tip.
+struct ProfilePoint {
+  double height = 0;
+  double radius = 0;
+
+  bool operator==(const ProfilePoint&) const = default;
+};
+
+// One part of the body: its profile from its lowest to its highest point,
+// heights non-decreasing, the radius linear between points. Every part of
+// the bodies built here is convex (the radius is a concave function of
+// height), which the sweep relies on.
+struct BodySection {
+  BodyPart part = BodyPart::Flutes;
+  std::vector<ProfilePoint> profile;
+
+  bool operator==(const BodySection&) const = default;
+
+  double bottom() const { return profile.front().height; }
+  double top() const { return profile.back().height; }
+  double max_radius() const;
+  // Radius at height h; 0 outside [bottom(), top()].
+  double radius_at(double h) const;
+};
+
+struct ToolBody {
+  std::vector<BodySection> sections;  // tip upward
+
+  bool operator==(const ToolBody&) const = default;
+
+  double top() const { return sections.back().top(); }
+  double max_radius() const;
+  // The largest radius of any part at height h above the tip.
+  double radius_at(double h) const;
+};
+
+// How the body is built where the tool data leaves things open.
+struct ToolBodyOptions {
+  // Corner radii are replaced by chords no further than this from the true
+  // arc, always inside it (mm); 0.1 um is 1/200 of a 0.02 mm tolerance.
+  double chord_tolerance = 1e-4;
+  // Length of a dovetail cutter's neck above the flutes when not known:
+  // 0 means "as long as the flute length" (an assumption, no source).
+  double neck_length = 0;
+  // How far the topmost part (shank, or holder when its diameter is given)
+  // reaches above the tip: far above any stock, so that plunging deep never
+  // leaves a phantom gap above the tool.
+  double body_top = 1000;
+};
+
+// The body of a job's tool, tip at height 0.
+//
+// End mill: flutes of the tool's diameter up to the flute length (with a
+// corner radius if one is given: a bull-nose end mill), then the shank.
+// Dovetail cutter (domain brief, "The dovetail cutter"): the large diameter D
+// at the tip, the cone at the tool's angle a rising to the small diameter
+// D - 2*h_f*cot(a) at the flute length h_f, the corner radius rounding the
+// sharp tip corner (the cone line still passes through the sharp corner at
+// D/2, so a pin-measured flank is where a sharp cutter would put it), then
+// the neck of the neck diameter, then the shank.
+//
+// Defaults, where the tool data has no value:
+//  - shank diameter: the tool's diameter (for a dovetail cutter, its large
+//    diameter: on the safe side, a touch it reports means "give the shank");
+//  - stickout (holder face to tip): none, the shank runs up to body_top;
+//  - holder: only when both holder_diameter and stickout are given, from the
+//    stickout up to body_top.
+// The tool data must be valid as the job reader checks it (positive
+// diameters, a cone that does not close within the flutes).
+ToolBody tool_body(const Tool& tool, const ToolBodyOptions& options = {});
+
+}  // namespace dovetailor

@@ -1,0 +1,118 @@
+#include <cmath>
+
+#include <gtest/gtest.h>
+
+#include <dovetailor/tool_body.hpp>
+
+namespace dovetailor {
+namespace {
+
+// A 3/4 in 60 degree dovetail cutter with 5/16 in of flutes (example).
+Tool dovetail_cutter() {
+  Tool t;
+  t.kind = ToolKind::Dovetail;
+  t.diameter = 19.05;
+  t.flute_length = 7.9375;
+  t.angle = 60;
+  t.neck_diameter = 9.0;
+  t.corner_radius = 0.4;
+  t.shank_diameter = 9.525;
+  t.stickout = 40;
+  t.holder_diameter = 32;
+  return t;
+}
+
+const BodySection& part(const ToolBody& body, BodyPart which) {
+  for (const BodySection& s : body.sections)
+    if (s.part == which) return s;
+  throw std::logic_error("missing body part");
+}
+
+TEST(tool_body, dovetail_small_diameter_follows_the_cone) {
+  // Small diameter = D - 2*h_f*cot(a) (domain brief, "The dovetail cutter").
+  const Tool t = dovetail_cutter();
+  const ToolBody body = tool_body(t);
+  const BodySection& flutes = part(body, BodyPart::Flutes);
+  const double small = 19.05 - 2 * 7.9375 / std::tan(radians(60));
+  EXPECT_NEAR(2 * flutes.radius_at(t.flute_length), small, 1e-12);
+  EXPECT_NEAR(flutes.top(), 7.9375, 1e-12);
+  // The cone line passes through the sharp corner at D/2 on the tip plane.
+  const double h = 5.0;
+  EXPECT_NEAR(flutes.radius_at(h), 19.05 / 2 - h / std::tan(radians(60)), 1e-12);
+}
+
+TEST(tool_body, dovetail_corner_round_is_tangent_to_face_and_cone) {
+  // Fillet of radius rc in a corner of angle a: tangent points rc*cot(a/2)
+  // from the corner (plane geometry).
+  const Tool t = dovetail_cutter();
+  const ToolBody body = tool_body(t);
+  const BodySection& flutes = part(body, BodyPart::Flutes);
+  const double tangent = 0.4 / std::tan(radians(30));
+  EXPECT_NEAR(flutes.profile[1].radius, 19.05 / 2 - tangent, 1e-12);
+  EXPECT_EQ(flutes.profile[1].height, 0);
+  // The widest point of the round: centre radius + rc, less at most the
+  // chord tolerance (0.1 um) since chords lie inside the arc.
+  EXPECT_LE(flutes.max_radius(), 19.05 / 2 - tangent + 0.4);
+  EXPECT_GE(flutes.max_radius(), 19.05 / 2 - tangent + 0.4 - 1e-4);
+  // Every chord point lies on the round (inscribed chords).
+  const ProfilePoint centre{0.4, 19.05 / 2 - tangent};
+  for (std::size_t i = 1; i + 1 < flutes.profile.size(); ++i) {
+    const auto& p = flutes.profile[i];
+    EXPECT_NEAR(std::hypot(p.height - centre.height, p.radius - centre.radius), 0.4, 1e-12);
+  }
+  // Chord error within the default 0.1 um: midpoint of a chord to the arc.
+  const auto& a = flutes.profile[1];
+  const auto& b = flutes.profile[2];
+  const double mid = std::hypot((a.height + b.height) / 2 - centre.height,
+                                (a.radius + b.radius) / 2 - centre.radius);
+  EXPECT_LE(0.4 - mid, 1e-4);
+}
+
+TEST(tool_body, dovetail_parts_stack_up_to_the_holder) {
+  const ToolBody body = tool_body(dovetail_cutter());
+  ASSERT_EQ(body.sections.size(), 4u);
+  EXPECT_EQ(body.sections[0].part, BodyPart::Flutes);
+  EXPECT_EQ(body.sections[1].part, BodyPart::Neck);
+  EXPECT_EQ(body.sections[2].part, BodyPart::Shank);
+  EXPECT_EQ(body.sections[3].part, BodyPart::Holder);
+  // Neck defaults to the flute length; shank runs to the stickout.
+  EXPECT_NEAR(body.sections[1].top(), 2 * 7.9375, 1e-12);
+  EXPECT_NEAR(body.radius_at(10), 4.5, 1e-12);
+  EXPECT_NEAR(body.radius_at(30), 9.525 / 2, 1e-12);
+  EXPECT_NEAR(body.radius_at(50), 16, 1e-12);
+  EXPECT_EQ(body.top(), 1000);
+  EXPECT_EQ(body_part_name(body.sections[1].part), "neck");
+}
+
+TEST(tool_body, end_mill_defaults_shank_to_its_diameter_without_holder) {
+  Tool t;
+  t.kind = ToolKind::EndMill;
+  t.diameter = 12;
+  t.flute_length = 25;
+  const ToolBody body = tool_body(t);
+  ASSERT_EQ(body.sections.size(), 2u);
+  EXPECT_EQ(body.sections[0].profile, (std::vector<ProfilePoint>{{0, 0}, {0, 6}, {25, 6}}));
+  EXPECT_EQ(body.sections[1].part, BodyPart::Shank);
+  EXPECT_EQ(body.radius_at(500), 6);
+  EXPECT_EQ(body.max_radius(), 6);
+}
+
+TEST(tool_body, bull_nose_end_mill_rounds_its_corner) {
+  Tool t;
+  t.kind = ToolKind::EndMill;
+  t.diameter = 10;
+  t.flute_length = 20;
+  t.corner_radius = 1;
+  const ToolBody body = tool_body(t);
+  const BodySection& flutes = part(body, BodyPart::Flutes);
+  EXPECT_NEAR(flutes.radius_at(0), 4, 1e-12);
+  EXPECT_NEAR(flutes.radius_at(1), 5, 1e-12);
+  // On the round (centre at height 1, radius 4) within the chord tolerance,
+  // measured normal to the arc, and never outside it.
+  const double from_centre = std::hypot(0.5 - 1, flutes.radius_at(0.5) - 4);
+  EXPECT_LE(from_centre, 1 + 1e-12);
+  EXPECT_GE(from_centre, 1 - 1e-4);
+}
+
+}  // namespace
+}  // namespace dovetailor
