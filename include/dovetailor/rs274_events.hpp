@@ -116,9 +116,9 @@ struct ProgramEnd {
   bool operator==(const ProgramEnd&) const = default;
 };
 
-enum class CompensationSide { Off, Left, Right };  // G40, G41, G42
+enum class CompensationSide { Off, Left, Right };     // G40, G41, G42
 enum class FeedMode { UnitsPerMinute, InverseTime };  // G94, G93
-enum class DistanceMode { Absolute, Incremental };   // G90, G91
+enum class DistanceMode { Absolute, Incremental };    // G90, G91
 
 // The modal state in force when an event happens (after the block's own
 // mode changes).
@@ -130,8 +130,8 @@ struct MachineState {
   double feed_mm_per_min = 0;  // the F word in G94 (0 until set)
   SpindleDirection spindle = SpindleDirection::Stopped;
   double spindle_rpm = 0;
-  int tool = 0;           // in the spindle (0: none)
-  int selected_tool = 0;  // by the last T word
+  int tool = 0;                       // in the spindle (0: none)
+  int selected_tool = 0;              // by the last T word
   bool length_offset_active = false;  // G43
   double length_offset_mm = 0;
   CompensationSide compensation = CompensationSide::Off;

@@ -63,16 +63,16 @@ struct ToolTableEntry {
 };
 
 struct InterpreterOptions {
-  std::vector<ToolTableEntry> tools;
+  std::vector<ToolTableEntry> tools{};
   Units initial_units = Units::Millimetre;  // until the program says G20 or G21
-  Point3 start_mm;  // tool tip at the start, in G54 work coordinates
+  Point3 start_mm{};                        // tool tip at the start, in G54 work coordinates
   // The operator's block delete switch: when on, lines that start with '/'
   // are skipped without being read.
   bool block_delete = false;
-  Rs274Limits limits;
+  Rs274Limits limits{};
   int highest_parameter = Rs274Parameters::highest_number;
   // Parameter values before the program starts, e.g. {{5221, 10.0}}.
-  std::vector<std::pair<int, double>> parameters;
+  std::vector<std::pair<int, double>> parameters{};
 };
 
 class Rs274Interpreter {
@@ -95,7 +95,7 @@ class Rs274Interpreter {
   struct Cycle {
     int code = 0;  // 810 .. 890
     int holes_left = 0;
-    double x = 0, y = 0;  // this hole
+    double x = 0, y = 0;    // this hole
     double dx = 0, dy = 0;  // increment per repeat (G91), 0 in G90
     double r = 0, bottom = 0, clear = 0, dwell = 0, peck = 0;
     int line = 0;
@@ -119,7 +119,7 @@ class Rs274Interpreter {
   Point3 position_;
   std::optional<Point3> programmed_;  // programmed point while compensating
   bool compensation_entry_pending_ = false;
-  int motion_mode_ = 800;  // G code times ten
+  int motion_mode_ = 800;           // G code times ten
   bool retract_to_r_mode_ = false;  // G99; G98 (back to the old Z) at the start
   std::optional<double> cycle_r_, cycle_z_;
   std::optional<Cycle> cycle_;

@@ -71,12 +71,12 @@ CompensatedMove compensate_move(const Point3& tool, const PathSegment& programme
   const Point3 mid = offset(start, normal, radius, tool.z);
   Point3 from = tool;
   if (corner_arc && at_corner && beta > concave_tolerance) {
-    result.tool_centre.push_back(PathSegment{
-        tool, mid,
-        ArcShape{{start.x, start.y, tool.z},
-                 Plane::XY,
-                 left ? ArcDirection::Clockwise : ArcDirection::Counterclockwise,
-                 1}});
+    result.tool_centre.push_back(
+        PathSegment{tool, mid,
+                    ArcShape{{start.x, start.y, tool.z},
+                             Plane::XY,
+                             left ? ArcDirection::Clockwise : ArcDirection::Counterclockwise,
+                             1}});
     from = mid;
   }
   if (!programmed.arc) {
@@ -91,10 +91,9 @@ CompensatedMove compensate_move(const Point3& tool, const PathSegment& programme
   // Without a corner arc the tool may be a hair off the offset circle; start
   // the arc where the tool is so the path stays continuous.
   if (result.tool_centre.empty()) arc_start = from;
-  result.tool_centre.push_back(
-      PathSegment{arc_start, offset(c, end_angle, new_radius, end.z),
-                  ArcShape{{c.x, c.y, from.z}, Plane::XY, programmed.arc->direction,
-                           programmed.arc->turns}});
+  result.tool_centre.push_back(PathSegment{
+      arc_start, offset(c, end_angle, new_radius, end.z),
+      ArcShape{{c.x, c.y, from.z}, Plane::XY, programmed.arc->direction, programmed.arc->turns}});
   return result;
 }
 

@@ -1,6 +1,6 @@
-#include <dovetailor/program_source.hpp>
-
 #include <utility>
+
+#include <dovetailor/program_source.hpp>
 
 namespace dovetailor {
 

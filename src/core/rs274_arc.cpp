@@ -6,18 +6,24 @@ namespace dovetailor::detail {
 
 PlaneCoordinates in_plane(const Point3& p, Plane plane) {
   switch (plane) {
-    case Plane::XY: return {p.x, p.y, p.z};
-    case Plane::ZX: return {p.z, p.x, p.y};
-    case Plane::YZ: return {p.y, p.z, p.x};
+    case Plane::XY:
+      return {p.x, p.y, p.z};
+    case Plane::ZX:
+      return {p.z, p.x, p.y};
+    case Plane::YZ:
+      return {p.y, p.z, p.x};
   }
   return {};
 }
 
 Point3 from_plane(const PlaneCoordinates& c, Plane plane) {
   switch (plane) {
-    case Plane::XY: return {c.first, c.second, c.normal};
-    case Plane::ZX: return {c.second, c.normal, c.first};
-    case Plane::YZ: return {c.normal, c.first, c.second};
+    case Plane::XY:
+      return {c.first, c.second, c.normal};
+    case Plane::ZX:
+      return {c.second, c.normal, c.first};
+    case Plane::YZ:
+      return {c.normal, c.first, c.second};
   }
   return {};
 }
@@ -40,8 +46,8 @@ ArcCentre centre_from_radius(const Point3& start, const Point3& end, double radi
   if (radius < 0) side = -side;
   const double nx = -dy / chord;
   const double ny = dx / chord;
-  const PlaneCoordinates c{s.first + dx / 2 + side * rise * nx, s.second + dy / 2 + side * rise * ny,
-                           s.normal};
+  const PlaneCoordinates c{s.first + dx / 2 + side * rise * nx,
+                           s.second + dy / 2 + side * rise * ny, s.normal};
   return {from_plane(c, plane), ArcFault::None};
 }
 

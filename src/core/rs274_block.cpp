@@ -1,9 +1,8 @@
-#include <dovetailor/rs274_block.hpp>
-
 #include <cassert>
 #include <cmath>
 
 #include <dovetailor/error.hpp>
+#include <dovetailor/rs274_block.hpp>
 
 #include "rs274_line.hpp"
 #include "rs274_value_reader.hpp"
@@ -28,8 +27,15 @@ std::string upper(char letter) { return std::string(1, static_cast<char>(letter 
 
 bool is_word_letter(char c) {
   switch (c) {
-    case 'e': case 'n': case 'o': case 'u': case 'v': case 'w': return false;
-    default: return c >= 'a' && c <= 'z';
+    case 'e':
+    case 'n':
+    case 'o':
+    case 'u':
+    case 'v':
+    case 'w':
+      return false;
+    default:
+      return c >= 'a' && c <= 'z';
   }
 }
 

@@ -1,6 +1,6 @@
-#include <dovetailor/rs274_interpreter.hpp>
-
 #include <algorithm>
+
+#include <dovetailor/rs274_interpreter.hpp>
 
 namespace dovetailor {
 
@@ -13,6 +13,7 @@ void Rs274Interpreter::next_hole() {
   Cycle& c = *cycle_;
   const double feed = state_.feed_mm_per_min;
   const auto move = [&](MotionKind kind, Point3 to) {
+    if (to == position_) return;
     const PathSegment path{position_, to, {}};
     push_motion(c.line, kind, path, {path}, kind == MotionKind::Rapid ? 0 : feed, true);
     position_ = to;
@@ -51,7 +52,8 @@ void Rs274Interpreter::next_hole() {
       push(c.line, Dwell{c.dwell});
       move(MotionKind::Feed, at(c.r));
       break;
-    default: break;
+    default:
+      break;
   }
   if (position_.z != c.clear) move(MotionKind::Rapid, at(c.clear));
   c.x += c.dx;

@@ -1,10 +1,9 @@
-#include <dovetailor/rs274_expression.hpp>
-
 #include <array>
 #include <charconv>
 #include <cmath>
 #include <string>
 
+#include <dovetailor/rs274_expression.hpp>
 #include <dovetailor/units.hpp>
 
 #include "rs274_value_reader.hpp"
@@ -159,7 +158,8 @@ class ValueReader {
           line_.fail("a negative number cannot be raised to a non-integer power", field_, at);
         if (a == 0 && b < 0) line_.fail("zero to a negative power divides by zero", field_, at);
         return finite(std::pow(a, b), at);
-      case Op::Times: return finite(a * b, at);
+      case Op::Times:
+        return finite(a * b, at);
       case Op::Divide:
         if (b == 0) line_.fail("division by zero", field_, at);
         return finite(a / b, at);
@@ -169,11 +169,16 @@ class ValueReader {
         if (r < 0) r += std::fabs(b);
         return r;
       }
-      case Op::Plus: return finite(a + b, at);
-      case Op::Minus: return finite(a - b, at);
-      case Op::And: return (a != 0 && b != 0) ? 1.0 : 0.0;
-      case Op::Xor: return ((a != 0) != (b != 0)) ? 1.0 : 0.0;
-      case Op::Or: return (a != 0 || b != 0) ? 1.0 : 0.0;
+      case Op::Plus:
+        return finite(a + b, at);
+      case Op::Minus:
+        return finite(a - b, at);
+      case Op::And:
+        return (a != 0 && b != 0) ? 1.0 : 0.0;
+      case Op::Xor:
+        return ((a != 0) != (b != 0)) ? 1.0 : 0.0;
+      case Op::Or:
+        return (a != 0 || b != 0) ? 1.0 : 0.0;
     }
     return 0;
   }
@@ -194,8 +199,7 @@ class ValueReader {
     for (auto& ch : upper) ch = static_cast<char>(ch - 'a' + 'A');
     if (name == "atan") {
       const double y = argument(depth, upper);
-      if (!line_.accept("/"))
-        line_.fail("ATAN needs two arguments written ATAN[y]/[x]", field_);
+      if (!line_.accept("/")) line_.fail("ATAN needs two arguments written ATAN[y]/[x]", field_);
       const double x = argument(depth, upper);
       return degrees(std::atan2(y, x));
     }

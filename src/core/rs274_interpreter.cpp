@@ -1,10 +1,9 @@
-#include <dovetailor/rs274_interpreter.hpp>
-
 #include <algorithm>
 #include <array>
 #include <cmath>
 
 #include <dovetailor/error.hpp>
+#include <dovetailor/rs274_interpreter.hpp>
 
 #include "cutter_compensation.hpp"
 #include "rs274_arc.hpp"
@@ -18,24 +17,72 @@ namespace {
 // RS-274/NGC code the checker does not simulate.
 int g_group(int code) {
   switch (code) {
-    case 0: case 10: case 20: case 30: case 800: case 810: case 820: case 830: case 850:
+    case 0:
+    case 10:
+    case 20:
+    case 30:
+    case 800:
+    case 810:
+    case 820:
+    case 830:
+    case 850:
     case 890:
       return 1;
-    case 170: case 180: case 190: return 2;
-    case 900: case 910: return 3;
-    case 930: case 940: return 5;
-    case 200: case 210: return 6;
-    case 400: case 410: case 420: return 7;
-    case 430: case 490: return 8;
-    case 980: case 990: return 10;
-    case 540: case 550: case 560: case 570: case 580: case 590: case 591: case 592: case 593:
+    case 170:
+    case 180:
+    case 190:
+      return 2;
+    case 900:
+    case 910:
+      return 3;
+    case 930:
+    case 940:
+      return 5;
+    case 200:
+    case 210:
+      return 6;
+    case 400:
+    case 410:
+    case 420:
+      return 7;
+    case 430:
+    case 490:
+      return 8;
+    case 980:
+    case 990:
+      return 10;
+    case 540:
+    case 550:
+    case 560:
+    case 570:
+    case 580:
+    case 590:
+    case 591:
+    case 592:
+    case 593:
       return 12;
-    case 610: case 611: case 640: return 13;
-    case 40: case 530: return 0;
-    case 100: case 280: case 300: case 382: case 840: case 860: case 870: case 880: case 920:
-    case 921: case 922: case 923:
+    case 610:
+    case 611:
+    case 640:
+      return 13;
+    case 40:
+    case 530:
+      return 0;
+    case 100:
+    case 280:
+    case 300:
+    case 382:
+    case 840:
+    case 860:
+    case 870:
+    case 880:
+    case 920:
+    case 921:
+    case 922:
+    case 923:
       return -2;
-    default: return -1;
+    default:
+      return -1;
   }
 }
 
@@ -43,12 +90,27 @@ int g_group(int code) {
 // 8 coolant, 9 override switches.
 int m_group(int code) {
   switch (code) {
-    case 0: case 1: case 2: case 30: case 60: return 4;
-    case 6: return 6;
-    case 3: case 4: case 5: return 7;
-    case 7: case 8: case 9: return 8;
-    case 48: case 49: return 9;
-    default: return -1;
+    case 0:
+    case 1:
+    case 2:
+    case 30:
+    case 60:
+      return 4;
+    case 6:
+      return 6;
+    case 3:
+    case 4:
+    case 5:
+      return 7;
+    case 7:
+    case 8:
+    case 9:
+      return 8;
+    case 48:
+    case 49:
+      return 9;
+    default:
+      return -1;
   }
 }
 
@@ -71,7 +133,8 @@ class Rs274BlockExecutor {
     classify();
     decide_motion();
     check_letters();
-    if (g_[5]) st_.feed_mode = g_[5]->number == 930 ? FeedMode::InverseTime : FeedMode::UnitsPerMinute;
+    if (g_[5])
+      st_.feed_mode = g_[5]->number == 930 ? FeedMode::InverseTime : FeedMode::UnitsPerMinute;
     if (g_[6]) st_.program_units = g_[6]->number == 200 ? Units::Inch : Units::Millimetre;
     feed_and_speed();
     tool_and_spindle();
@@ -98,8 +161,9 @@ class Rs274BlockExecutor {
              g_name(code.number) + " is not an RS-274/NGC G code");
       if (group == -2)
         fail(code.column, g_name(code.number),
-             g_name(code.number) + " is not supported by the checker; remove it or check this "
-                                   "part of the program another way");
+             g_name(code.number) +
+                 " is not supported by the checker; remove it or check this "
+                 "part of the program another way");
       auto& slot = g_[static_cast<std::size_t>(group)];
       if (slot)
         fail(code.column, g_name(code.number),
@@ -113,8 +177,8 @@ class Rs274BlockExecutor {
         fail(code.column, m_name(code.number),
              m_name(code.number) + " is not an RS-274/NGC M code the checker knows");
       auto& slot = m_[static_cast<std::size_t>(group)];
-      const bool mist_and_flood =
-          group == 8 && slot && slot->number != 9 && code.number != 9 && slot->number != code.number;
+      const bool mist_and_flood = group == 8 && slot && slot->number != 9 && code.number != 9 &&
+                                  slot->number != code.number;
       if (slot && !mist_and_flood)
         fail(code.column, m_name(code.number),
              m_name(slot->number) + " and " + m_name(code.number) +
@@ -145,7 +209,9 @@ class Rs274BlockExecutor {
            "axis words with G80 (motion cancelled) in effect; give G0, G1, G2 or G3 first");
     if (g53 && motion_ != 0 && motion_ != 10)
       fail(g_[0]->column, "G53", "G53 needs G0 or G1 on the line or in effect");
-    if (g53 && st_.distance == DistanceMode::Incremental && !(g_[3] && g_[3]->number == 900))
+    const bool incremental =
+        g_[3] ? g_[3]->number == 910 : st_.distance == DistanceMode::Incremental;
+    if (g53 && incremental)
       fail(g_[0]->column, "G53", "G53 cannot be used in incremental mode (G91)");
   }
 
@@ -258,7 +324,8 @@ class Rs274BlockExecutor {
     if (number == 0) return {};
     const auto* tool = find_tool(number);
     if (tool == nullptr)
-      fail(b_.has(letter) ? word(letter).column : g_[7]->column, b_.has(letter) ? upper(letter) : code,
+      fail(b_.has(letter) ? word(letter).column : g_[7]->column,
+           b_.has(letter) ? upper(letter) : code,
            "tool " + std::to_string(number) + " is not in the tool table; add it or use another");
     return *tool;
   }
@@ -281,8 +348,10 @@ class Rs274BlockExecutor {
     if (b_.has('d')) {
       number = whole('d', 0, 1 << 30, "D needs a tool number, 0 or more");
     } else if (number == 0) {
-      fail(g_[7]->column, name, name + " needs D, the tool whose radius to use (no tool is in the "
-                                       "spindle)");
+      fail(g_[7]->column, name,
+           name +
+               " needs D, the tool whose radius to use (no tool is in the "
+               "spindle)");
     }
     const auto tool = tool_for('d', number, name);
     st_.compensation = code == 410 ? CompensationSide::Left : CompensationSide::Right;
@@ -337,8 +406,10 @@ class Rs274BlockExecutor {
     const auto axis = [&](char letter, double& value, double origin, double base_value) {
       if (!b_.has(letter)) return;
       const double v = mm(word(letter).value);
-      if (g53) value = v - origin;
-      else value = incremental ? base_value + v : v;
+      if (g53)
+        value = v - origin;
+      else
+        value = incremental ? base_value + v : v;
     };
     axis('x', end.x, st_.work_offset_mm.x, base.x);
     axis('y', end.y, st_.work_offset_mm.y, base.y);
@@ -396,7 +467,8 @@ class Rs274BlockExecutor {
         fail(motion_column_, code,
              "the cutter radius is not smaller than the radius of this inside arc; use a smaller "
              "cutter or a larger arc");
-      case detail::CompensationFault::None: break;
+      case detail::CompensationFault::None:
+        break;
     }
     fail(motion_column_, code, "cutter compensation failed");
   }
@@ -420,8 +492,8 @@ class Rs274BlockExecutor {
         position = end;
         return;
       }
-      auto moved = detail::compensate_entry(position, end, st_.compensation_radius_mm,
-                                            st_.compensation);
+      auto moved =
+          detail::compensate_entry(position, end, st_.compensation_radius_mm, st_.compensation);
       if (moved.fault != detail::CompensationFault::None) compensation_fault(moved.fault);
       position = moved.tool_centre.back().end;
       in_.programmed_ = end;
@@ -452,8 +524,9 @@ class Rs274BlockExecutor {
                                         : pl == Plane::ZX ? std::array{'k', 'i'}
                                                           : std::array{'j', 'k'};
     const char foreign = pl == Plane::XY ? 'k' : pl == Plane::ZX ? 'j' : 'i';
-    const std::string plane_name = pl == Plane::XY ? "XY (G17)" : pl == Plane::ZX ? "ZX (G18)"
-                                                                                 : "YZ (G19)";
+    const std::string plane_name = pl == Plane::XY   ? "XY (G17)"
+                                   : pl == Plane::ZX ? "ZX (G18)"
+                                                     : "YZ (G19)";
     if (!b_.has(axes[0]) && !b_.has(axes[1]))
       fail(motion_column_, code,
            code + " needs an end point in the " + plane_name + " plane: give " + upper(axes[0]) +
@@ -464,8 +537,9 @@ class Rs274BlockExecutor {
     const bool radius_format = b_.has('r');
     const bool centre_format = b_.has(offsets[0]) || b_.has(offsets[1]);
     if (radius_format && centre_format)
-      fail(word('r').column, "R", "give either R or the centre offsets " + upper(offsets[0]) +
-                                      " " + upper(offsets[1]) + ", not both");
+      fail(word('r').column, "R",
+           "give either R or the centre offsets " + upper(offsets[0]) + " " + upper(offsets[1]) +
+               ", not both");
     if (!radius_format && !centre_format)
       fail(motion_column_, code,
            code + " needs R (radius) or the centre offsets " + upper(offsets[0]) + " and " +
@@ -479,15 +553,13 @@ class Rs274BlockExecutor {
     start.z = in_.position_.z;
     const auto direction = motion_ == 20 ? ArcDirection::Clockwise : ArcDirection::Counterclockwise;
     // Radius tolerance of the NIST interpreter: 0.0005 in or 0.005 mm (from memory).
-    const double tolerance =
-        st_.program_units == Units::Inch ? to_mm(0.0005, Units::Inch) : 0.005;
+    const double tolerance = st_.program_units == Units::Inch ? to_mm(0.0005, Units::Inch) : 0.005;
     const auto found =
         radius_format
             ? detail::centre_from_radius(start, end, mm(word('r').value), direction, pl, tolerance)
-            : detail::centre_from_offsets(start, end,
-                                          b_.has(offsets[0]) ? mm(word(offsets[0]).value) : 0.0,
-                                          b_.has(offsets[1]) ? mm(word(offsets[1]).value) : 0.0,
-                                          pl, tolerance);
+            : detail::centre_from_offsets(
+                  start, end, b_.has(offsets[0]) ? mm(word(offsets[0]).value) : 0.0,
+                  b_.has(offsets[1]) ? mm(word(offsets[1]).value) : 0.0, pl, tolerance);
     switch (found.fault) {
       case detail::ArcFault::SameEndPoints:
         fail(word('r').column, "R",
@@ -500,9 +572,10 @@ class Rs274BlockExecutor {
       case detail::ArcFault::RadiiDiffer:
         fail(motion_column_, code,
              "the end point is not on the circle: its distance from the centre differs from the "
-             "start's by more than " + std::string(st_.program_units == Units::Inch ? "0.0005 in"
-                                                                                 : "0.005 mm"));
-      case detail::ArcFault::None: break;
+             "start's by more than " +
+                 std::string(st_.program_units == Units::Inch ? "0.0005 in" : "0.005 mm"));
+      case detail::ArcFault::None:
+        break;
     }
     const PathSegment path{start, end, ArcShape{found.centre, pl, direction, 1}};
     const double feed = feed_for(path, code);
@@ -529,7 +602,8 @@ class Rs274BlockExecutor {
       fail(motion_column_, code, "a canned cycle cannot run in inverse time feed (G93)");
     const bool retained = previous_motion_ == motion_;
     const auto level = [&](char letter, std::optional<double>& kept, const std::string& what) {
-      if (b_.has(letter)) kept = mm(word(letter).value);
+      if (b_.has(letter))
+        kept = mm(word(letter).value);
       else if (!retained || !kept)
         fail(motion_column_, code, code + " needs " + upper(letter) + ", " + what);
       return *kept;
@@ -587,15 +661,19 @@ class Rs274BlockExecutor {
   void stops() {
     if (!m_[4]) return;
     const int code = m_[4]->number;
-    if (code == 2 || code == 30) emit(ProgramEnd{code == 2 ? EndKind::M2 : EndKind::M30});
-    else emit(Stop{code == 1 ? StopKind::Optional : StopKind::Program});
+    if (code == 2 || code == 30)
+      emit(ProgramEnd{code == 2 ? EndKind::M2 : EndKind::M30});
+    else
+      emit(Stop{code == 1 ? StopKind::Optional : StopKind::Program});
   }
 
   // A canned cycle with repeats hands out its holes later; a stop follows them.
   template <typename Body>
   void emit(Body body) {
-    if (in_.cycle_) in_.after_cycle_.emplace_back(b_.line, body);
-    else in_.push(b_.line, body);
+    if (in_.cycle_)
+      in_.after_cycle_.emplace_back(b_.line, body);
+    else
+      in_.push(b_.line, body);
   }
 
   [[noreturn]] void fail(int column, const std::string& field, const std::string& message) const {
@@ -639,8 +717,7 @@ void Rs274Interpreter::push(int line, EventBody body) {
 }
 
 void Rs274Interpreter::push_motion(int line, MotionKind kind, PathSegment programmed,
-                                   std::vector<PathSegment> tool_centre, double feed,
-                                   bool canned) {
+                                   std::vector<PathSegment> tool_centre, double feed, bool canned) {
   push(line, Motion{kind, std::move(programmed), std::move(tool_centre), feed, canned});
 }
 

@@ -26,7 +26,8 @@ Rs274Line::Rs274Line(std::string_view raw, const std::string& file, int line)
     const char c = raw[i];
     const int col = static_cast<int>(i) + 1;
     if (comment_start != std::string_view::npos) {
-      if (c == ')') comment_start = std::string_view::npos;
+      if (c == ')')
+        comment_start = std::string_view::npos;
       else if (c == '(')
         throw InputError("a comment may not contain '(' (comments do not nest); close it with ')'",
                          {file_, line_, col}, "comment");

@@ -1,7 +1,7 @@
-#include <dovetailor/rs274_parameters.hpp>
-
 #include <algorithm>
 #include <cassert>
+
+#include <dovetailor/rs274_parameters.hpp>
 
 namespace dovetailor {
 
