@@ -99,6 +99,18 @@ TEST(rs274_interpreter, g53_moves_in_machine_coordinates) {
   expect_point(moves[0].programmed.end, -10, -20, -30);
 }
 
+TEST(rs274_interpreter, g28_goes_home_through_the_intermediate_point) {
+  // Home at machine (0, 0, 100) in #5161..#5163, G54 origin at machine
+  // (200, 100, 0): the home reads (-200, -100, 100) in work coordinates.
+  InterpreterOptions options{.parameters = {{5163, 100}, {5221, 200}, {5222, 100}}};
+  const auto moves = motions(run_program("G0 X5 Y5 Z1\nG91 G28 Z10\nM2\n", options));
+  ASSERT_EQ(moves.size(), 3u);
+  expect_point(moves[1].programmed.end, 5, 5, 11);
+  expect_point(moves[2].programmed.end, -200, -100, 100);
+  EXPECT_EQ(moves[2].kind, MotionKind::Rapid);
+  expect_input_error([] { run_program("G28 G1 X1 F10\n"); }, {"G1", "both use the axis words"});
+}
+
 TEST(rs274_interpreter, events_come_in_the_spec_order_within_a_block) {
   // NISTIR 6556 section 3.8 order of execution (from memory): tool change,
   // spindle, coolant, dwell, motion, stop.
@@ -162,6 +174,7 @@ TEST(rs274_interpreter, rejects_what_the_spec_forbids) {
       {"G1.5 X1", "test.ngc:1:1", "G1.5", "not an RS-274/NGC G code", "3.4 table of G codes"},
       {"M99", "test.ngc:1:1", "M99", "not an RS-274/NGC M code", "3.4 table of M codes"},
       {"G92 X0", "test.ngc:1:1", "G92", "not supported by the checker", "checker scope"},
+      {"G10 L2 P1 X0", "test.ngc:1:1", "G10", "not supported by the checker", "checker scope"},
       {"G0 A10", "test.ngc:1:4", "A", "rotary axis", "checker scope: three linear axes"},
       {"G1 X1", "test.ngc:1:1", "G1", "feed rate", "3.5.4 feed move needs F (G94)"},
       {"G2 X1 Y1", "test.ngc:1:1", "G2", "R (radius) or the centre offsets", "3.5.3 arc format"},

@@ -30,18 +30,22 @@ namespace dovetailor {
 //   (XY plane only), G43 H, G49, G53 (with G0/G1), G54..G59 G59.1..G59.3
 //   (origins from parameters #5221.. in the program's units at the time the
 //   system is selected), G61 G61.1 G64 (accepted; no effect on the path),
+//   G28 G30 (via the axis words' point to the home position in #5161.. or
+//   #5181.., machine coordinates, all three axes, as NIST V3 does),
 //   G80, canned cycles G81 G82 G83 G85 G89 in the XY plane (generated as the
 //   moves they make, with G98/G99 return levels, L repeats and the NIST
 //   retained R and Z), G90 G91, G93 G94, G98 G99, M0 M1 M2 M3 M4 M5 M6 M7
 //   M8 M9 M30 M48 M49 M60, F S T, parameters and expressions.
-// Not supported (InputError naming the line and the word): G10, G28, G30,
-//   G38.2, G84, G86, G87, G88, G92 family, A B C axis words, canned cycles
+// Not supported (InputError naming the line and the word): G10, G38.2, G84, G86, G87, G88, G92
+// family, A B C axis words, canned cycles
 //   outside the XY plane, canned cycles in G93.
 //
 // Order of execution within a block follows the spec's table (section 3.8,
 // from memory): parameter settings, feed mode, F, S, T, M6, M3-M5, M7-M9,
 // G4, plane, units, cutter compensation, length offset, coordinate system,
-// path mode, distance mode, return mode, motion, then M0 M1 M2 M30 M60.
+// path mode, distance mode, return mode, G28/G30, motion, then M0 M1 M2 M30
+// M60. One deviation: G20/G21 takes effect before F, so F is read in the
+// units the line sets.
 //
 // Errors are InputError with the program name as file, the line, the column
 // and the word as field. After an error the interpreter must not be used

@@ -66,11 +66,11 @@ int g_group(int code) {
     case 640:
       return 13;
     case 40:
+    case 280:
+    case 300:
     case 530:
       return 0;
     case 100:
-    case 280:
-    case 300:
     case 382:
     case 840:
     case 860:
@@ -147,6 +147,7 @@ class Rs274BlockExecutor {
       st_.distance = g_[3]->number == 900 ? DistanceMode::Absolute : DistanceMode::Incremental;
     if (g_[10]) retract_to_r_ = g_[10]->number == 990;
     in_.retract_to_r_mode_ = retract_to_r_;
+    if (homing()) go_home();
     motion();
     stops();
   }
@@ -192,11 +193,54 @@ class Rs274BlockExecutor {
              "rotary axis words are not supported by the checker (three linear axes only)");
   }
 
+  bool homing() const { return g_[0] && (g_[0]->number == 280 || g_[0]->number == 300); }
+
+  // G28 / G30 (NISTIR 6556 section 3.5.9, from memory): rapid to the
+  // intermediate point given by the axis words, if any, then rapid with all
+  // three axes to the home position held in machine coordinates in
+  // #5161-#5163 (G28) or #5181-#5183 (G30).
+  void go_home() {
+    const std::string code = g_name(g_[0]->number);
+    if (st_.compensation != CompensationSide::Off)
+      fail(g_[0]->column, code,
+           code + " cannot be used with cutter compensation on; give G40 first");
+    motion_column_ = g_[0]->column;
+    Point3& position = in_.position_;
+    if (axis_words()) {
+      const Point3 via = end_point();
+      const PathSegment path{position, via, {}};
+      in_.push_motion(b_.line, MotionKind::Rapid, path, {path}, 0);
+      position = via;
+    }
+    const int first = g_[0]->number == 280 ? 5161 : 5181;
+    Point3 home;
+    if (in_.parameters_.valid(first + 2))
+      home = {mm(in_.parameters_.get(first)), mm(in_.parameters_.get(first + 1)),
+              mm(in_.parameters_.get(first + 2))};
+    const Point3 to{home.x - st_.work_offset_mm.x, home.y - st_.work_offset_mm.y,
+                    home.z - st_.work_offset_mm.z - st_.length_offset_mm};
+    const PathSegment path{position, to, {}};
+    in_.push_motion(b_.line, MotionKind::Rapid, path, {path}, 0);
+    position = to;
+  }
+
   bool axis_words() const { return b_.has('x') || b_.has('y') || b_.has('z'); }
 
   void decide_motion() {
     const bool g53 = g_[0] && g_[0]->number == 530;
     previous_motion_ = in_.motion_mode_;
+    if (homing()) {
+      // The axis words belong to G28/G30 (the intermediate point).
+      if (g_[1] && g_[1]->number != 800 && axis_words())
+        fail(g_[1]->column, g_name(g_[1]->number),
+             g_name(g_[0]->number) + " and " + g_name(g_[1]->number) +
+                 " both use the axis words; put them on separate lines");
+      if (g_[1]) {
+        motion_ = g_[1]->number;
+        motion_column_ = g_[1]->column;
+      }
+      return;
+    }
     if (g_[1]) {
       motion_ = g_[1]->number;
       motion_column_ = g_[1]->column;
