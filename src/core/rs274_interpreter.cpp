@@ -215,8 +215,9 @@ class Rs274BlockExecutor {
     const int first = g_[0]->number == 280 ? 5161 : 5181;
     Point3 home;
     if (in_.parameters_.valid(first + 2))
-      home = {mm(in_.parameters_.get(first)), mm(in_.parameters_.get(first + 1)),
-              mm(in_.parameters_.get(first + 2))};
+      home = {stored_length(first, g_[0]->column, code),
+              stored_length(first + 1, g_[0]->column, code),
+              stored_length(first + 2, g_[0]->column, code)};
     const Point3 to{home.x - st_.work_offset_mm.x, home.y - st_.work_offset_mm.y,
                     home.z - st_.work_offset_mm.z - st_.length_offset_mm};
     const PathSegment path{position, to, {}};
@@ -292,6 +293,24 @@ class Rs274BlockExecutor {
   }
 
   double mm(double value) const { return to_mm(value, st_.program_units); }
+
+  // A position kept in a parameter (an origin, a home position), in mm.
+  double stored_length(int number, int column, const std::string& code) const {
+    const double v = mm(in_.parameters_.get(number));
+    if (std::fabs(v) > 1e7)
+      fail(column, code,
+           "parameter #" + std::to_string(number) + " is out of range (more than 10 km)");
+    return v;
+  }
+
+  // A length word in mm. Anything beyond 10 km is a typing error, and
+  // refusing it keeps every coordinate the simulation sees finite.
+  double length(char letter) const {
+    const double v = mm(word(letter).value);
+    if (std::fabs(v) > 1e7)
+      fail(word(letter).column, upper(letter), "value is out of range (more than 10 km)");
+    return v;
+  }
 
   const Rs274Word& word(char letter) const { return *b_.word(letter); }
   std::string upper(char letter) const { return std::string(1, static_cast<char>(letter - 32)); }
@@ -421,9 +440,11 @@ class Rs274BlockExecutor {
     const int index = code <= 590 ? (code - 540) / 10 + 1 : code - 591 + 7;
     const int first = 5221 + 20 * (index - 1);
     Point3 origin;
+    const std::string name = g_name(code);
     if (in_.parameters_.valid(first + 2))
-      origin = {mm(in_.parameters_.get(first)), mm(in_.parameters_.get(first + 1)),
-                mm(in_.parameters_.get(first + 2))};
+      origin = {stored_length(first, g_[12]->column, name),
+                stored_length(first + 1, g_[12]->column, name),
+                stored_length(first + 2, g_[12]->column, name)};
     const Point3 old = st_.work_offset_mm;
     const Point3 shift{old.x - origin.x, old.y - origin.y, old.z - origin.z};
     for (Point3* p : {&in_.position_, in_.programmed_ ? &*in_.programmed_ : nullptr}) {
@@ -449,7 +470,7 @@ class Rs274BlockExecutor {
     const bool incremental = st_.distance == DistanceMode::Incremental;
     const auto axis = [&](char letter, double& value, double origin, double base_value) {
       if (!b_.has(letter)) return;
-      const double v = mm(word(letter).value);
+      const double v = length(letter);
       if (g53)
         value = v - origin;
       else
@@ -600,10 +621,10 @@ class Rs274BlockExecutor {
     const double tolerance = st_.program_units == Units::Inch ? to_mm(0.0005, Units::Inch) : 0.005;
     const auto found =
         radius_format
-            ? detail::centre_from_radius(start, end, mm(word('r').value), direction, pl, tolerance)
-            : detail::centre_from_offsets(
-                  start, end, b_.has(offsets[0]) ? mm(word(offsets[0]).value) : 0.0,
-                  b_.has(offsets[1]) ? mm(word(offsets[1]).value) : 0.0, pl, tolerance);
+            ? detail::centre_from_radius(start, end, length('r'), direction, pl, tolerance)
+            : detail::centre_from_offsets(start, end, b_.has(offsets[0]) ? length(offsets[0]) : 0.0,
+                                          b_.has(offsets[1]) ? length(offsets[1]) : 0.0, pl,
+                                          tolerance);
     switch (found.fault) {
       case detail::ArcFault::SameEndPoints:
         fail(word('r').column, "R",
@@ -647,7 +668,7 @@ class Rs274BlockExecutor {
     const bool retained = previous_motion_ == motion_;
     const auto level = [&](char letter, std::optional<double>& kept, const std::string& what) {
       if (b_.has(letter))
-        kept = mm(word(letter).value);
+        kept = length(letter);
       else if (!retained || !kept)
         fail(motion_column_, code, code + " needs " + upper(letter) + ", " + what);
       return *kept;
@@ -662,15 +683,15 @@ class Rs274BlockExecutor {
     c.holes_left = repeats;
     const Point3 here = in_.position_;
     if (st_.distance == DistanceMode::Incremental) {
-      c.dx = b_.has('x') ? mm(word('x').value) : 0.0;
-      c.dy = b_.has('y') ? mm(word('y').value) : 0.0;
+      c.dx = b_.has('x') ? length('x') : 0.0;
+      c.dy = b_.has('y') ? length('y') : 0.0;
       c.x = here.x + c.dx;
       c.y = here.y + c.dy;
       c.r = here.z + r_word;
       c.bottom = c.r + z_word;
     } else {
-      c.x = b_.has('x') ? mm(word('x').value) : here.x;
-      c.y = b_.has('y') ? mm(word('y').value) : here.y;
+      c.x = b_.has('x') ? length('x') : here.x;
+      c.y = b_.has('y') ? length('y') : here.y;
       c.r = r_word;
       c.bottom = z_word;
     }
@@ -683,7 +704,7 @@ class Rs274BlockExecutor {
     }
     if (motion_ == 830) {
       if (!b_.has('q')) fail(motion_column_, code, "G83 needs Q, the depth of each peck");
-      c.peck = mm(word('q').value);
+      c.peck = length('q');
       if (c.peck <= 0) fail(word('q').column, "Q", "the peck depth Q must be greater than 0");
       if ((c.r - c.bottom) / c.peck > 1000)
         fail(word('q').column, "Q", "Q is so small that a hole needs more than 1000 pecks");
