@@ -1,4 +1,6 @@
 #include <cmath>
+#include <fstream>
+#include <sstream>
 #include <string>
 
 #include <gtest/gtest.h>
@@ -271,6 +273,27 @@ TEST(rs274_interpreter, repeats_in_incremental_mode_step_along) {
   for (const auto& e : events) dwells += std::holds_alternative<Dwell>(e.body) ? 1 : 0;
   EXPECT_EQ(dwells, 3);
   EXPECT_TRUE(std::holds_alternative<Stop>(events[events.size() - 2].body));
+}
+
+TEST(rs274_interpreter, fuzz_seed_programs_run_to_their_end) {
+  // The seeds under tests/fuzz/corpus/rs274 start with one mode byte for the
+  // fuzz target ('1' mm, '2' inch); the rest is a valid program.
+  for (const char* name : {"contour.ngc", "peck.ngc", "params.ngc", "planes.ngc"}) {
+    SCOPED_TRACE(name);
+    std::ifstream in(testing::source_path(std::string("tests/fuzz/corpus/rs274/") + name),
+                     std::ios::binary);
+    ASSERT_TRUE(in) << name;
+    std::stringstream text;
+    text << in.rdbuf();
+    const std::string program = text.str();
+    const auto units = program[0] == '2' ? Units::Inch : Units::Millimetre;
+    InterpreterOptions options{.tools = {{.number = 1, .radius_mm = 3, .length_mm = 50}},
+                               .initial_units = units};
+    const auto events = run_program(program.substr(1), options);
+    ASSERT_FALSE(events.empty());
+    EXPECT_TRUE(std::holds_alternative<ProgramEnd>(events.back().body));
+    EXPECT_GT(motions(events).size(), 0u);
+  }
 }
 
 }  // namespace

@@ -32,12 +32,13 @@ namespace dovetailor {
 //   system is selected), G61 G61.1 G64 (accepted; no effect on the path),
 //   G28 G30 (via the axis words' point to the home position in #5161.. or
 //   #5181.., machine coordinates, all three axes, as NIST V3 does),
-//   G80, canned cycles G81 G82 G83 G85 G89 in the XY plane (generated as the
-//   moves they make, with G98/G99 return levels, L repeats and the NIST
-//   retained R and Z), G90 G91, G93 G94, G98 G99, M0 M1 M2 M3 M4 M5 M6 M7
-//   M8 M9 M30 M48 M49 M60, F S T, parameters and expressions.
-// Not supported (InputError naming the line and the word): G10, G38.2, G84, G86, G87, G88, G92
-// family, A B C axis words, canned cycles
+//   G80, canned cycles G81 G82 G83 G85 G89 in the XY plane (generated as
+//   the moves they make, with G98/G99 return levels, L repeats, R and Z
+//   kept while the same cycle continues as NIST does, P and Q kept too),
+//   G90 G91, G93 G94, G98 G99, M0 M1 M2 M3 M4 M5 M6 M7 M8 M9 M30 M48 M49
+//   M60, F S T, parameters and expressions.
+// Not supported (InputError naming the line and the word): G10, G38.2,
+//   G84, G86, G87, G88, the G92 family, A B C axis words, canned cycles
 //   outside the XY plane, canned cycles in G93.
 //
 // Order of execution within a block follows the spec's table (section 3.8,
@@ -125,7 +126,7 @@ class Rs274Interpreter {
   bool compensation_entry_pending_ = false;
   int motion_mode_ = 800;           // G code times ten
   bool retract_to_r_mode_ = false;  // G99; G98 (back to the old Z) at the start
-  std::optional<double> cycle_r_, cycle_z_;
+  std::optional<double> cycle_r_, cycle_z_, cycle_p_, cycle_q_;  // kept cycle words, mm / s
   std::optional<Cycle> cycle_;
   std::vector<std::pair<int, EventBody>> after_cycle_;
   std::deque<Event> queue_;

@@ -500,6 +500,8 @@ class Rs274BlockExecutor {
     if (motion_ == 800) {
       in_.cycle_r_.reset();
       in_.cycle_z_.reset();
+      in_.cycle_p_.reset();
+      in_.cycle_q_.reset();
       return;
     }
     if (is_cycle(motion_)) {
@@ -697,17 +699,28 @@ class Rs274BlockExecutor {
     }
     if (c.bottom > c.r)
       fail(motion_column_, code, "the hole bottom Z is above the retract plane R");
+    // P and Q are kept like R and Z while the same cycle continues (common
+    // practice on controls; NIST V3 asks for them on every line, from memory).
     if (motion_ == 820 || motion_ == 890) {
-      if (!b_.has('p')) fail(motion_column_, code, code + " needs P, the dwell at the bottom");
-      c.dwell = word('p').value;
-      if (c.dwell < 0) fail(word('p').column, "P", "dwell time must not be negative");
+      if (b_.has('p')) {
+        if (word('p').value < 0) fail(word('p').column, "P", "dwell time must not be negative");
+        in_.cycle_p_ = word('p').value;
+      } else if (!retained || !in_.cycle_p_) {
+        fail(motion_column_, code, code + " needs P, the dwell at the bottom");
+      }
+      c.dwell = *in_.cycle_p_;
     }
     if (motion_ == 830) {
-      if (!b_.has('q')) fail(motion_column_, code, "G83 needs Q, the depth of each peck");
-      c.peck = length('q');
-      if (c.peck <= 0) fail(word('q').column, "Q", "the peck depth Q must be greater than 0");
+      if (b_.has('q')) {
+        if (length('q') <= 0)
+          fail(word('q').column, "Q", "the peck depth Q must be greater than 0");
+        in_.cycle_q_ = length('q');
+      } else if (!retained || !in_.cycle_q_) {
+        fail(motion_column_, code, "G83 needs Q, the depth of each peck");
+      }
+      c.peck = *in_.cycle_q_;
       if ((c.r - c.bottom) / c.peck > 1000)
-        fail(word('q').column, "Q", "Q is so small that a hole needs more than 1000 pecks");
+        fail(motion_column_, code, "Q is so small that a hole needs more than 1000 pecks");
     }
     if (st_.feed_mm_per_min <= 0)
       fail(motion_column_, code, code + " needs a feed rate: give F greater than 0 first");
