@@ -127,6 +127,18 @@ TEST(rs274_interpreter, events_come_in_the_spec_order_within_a_block) {
   EXPECT_EQ(std::get<ProgramEnd>(events[6].body).how, EndKind::M2);
 }
 
+TEST(rs274_interpreter, stops_coolant_and_path_modes) {
+  const auto events = run_program("G64 M7\nM1\nM9 S300\nG20\nM5\nM2\n");
+  ASSERT_EQ(events.size(), 5u);
+  EXPECT_EQ(std::get<CoolantChange>(events[0].body).coolant, (Coolant{true, false}));
+  EXPECT_EQ(std::get<Stop>(events[1].body).kind, StopKind::Optional);
+  EXPECT_EQ(std::get<CoolantChange>(events[2].body).coolant, (Coolant{}));
+  // S alone with the spindle stopped only changes the state; M5 reports it.
+  EXPECT_EQ(std::get<SpindleChange>(events[3].body),
+            (SpindleChange{SpindleDirection::Stopped, 300}));
+  EXPECT_EQ(events[3].state.program_units, Units::Inch);
+}
+
 TEST(rs274_interpreter, program_end_ignores_the_rest) {
   const auto events = run_program("G0 X1\nM2\nG0 X2\nthis is not read\n");
   ASSERT_EQ(events.size(), 2u);
@@ -171,6 +183,7 @@ TEST(rs274_interpreter, rejects_what_the_spec_forbids) {
   const Rejected cases[] = {
       {"G0 G1 X1", "test.ngc:1:4", "G1", "same modal group", "3.4 one code per modal group"},
       {"G17 G18", "test.ngc:1:5", "G18", "same modal group", "3.4 modal group 2"},
+      {"G64 G61.1", "test.ngc:1:5", "G61.1", "same modal group", "3.4 modal group 13"},
       {"M3 M4", "test.ngc:1:4", "M4", "same modal group", "3.4 M group 7"},
       {"G0 M2 M30", "test.ngc:1:7", "M30", "same modal group", "3.4 M group 4"},
       {"G1.5 X1", "test.ngc:1:1", "G1.5", "not an RS-274/NGC G code", "3.4 table of G codes"},
