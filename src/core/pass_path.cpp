@@ -28,6 +28,12 @@ MillingMode mode_of(bool plus_x_engaged, Along along) {
 
 void add_moves(const PlanContext& ctx, Pass& pass, double tool_radius, Along along,
                double previous_x, double plunge_feed) {
+  if (pass.number > max_passes)
+    throw InputError(
+        fmt::format("this job would need more than {} passes: check the sizes and units (a "
+                    "stock or depth far larger than the tools, or tools far too small)",
+                    max_passes),
+        {ctx.job.source}, "stock.size");
   const double length = ctx.job.dovetail.length;
   const double outside_front = -(tool_radius + ctx.clearance);
   const bool front_open = ctx.job.dovetail.ends == Ends::FrontOpen;

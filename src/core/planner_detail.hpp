@@ -35,6 +35,10 @@ struct PlanContext {
   std::string show(double mm) const;
 };
 
+// A plan is refused beyond this many passes: no dovetail needs it, and it
+// keeps a mistyped job from filling memory.
+inline constexpr int max_passes = 5000;
+
 // Direction of a cut along the slide.
 enum class Along { Forward, Back };  // +Y, -Y
 

@@ -1,0 +1,41 @@
+#include "app.hpp"
+
+#include <cstdio>
+#include <exception>
+
+#include <fmt/format.h>
+
+#include <dovetailor/error.hpp>
+
+#include "commands.hpp"
+
+namespace dovetailor::cli {
+
+int run_cli(int argc, const char* const* argv) {
+  CLI::App app{
+      "dovetailor: plans, programs and checks dovetail slides cut on milling machines, with "
+      "pin-measurement checkpoints.",
+      "dovetailor"};
+  app.require_subcommand(1);
+  app.set_version_flag("--version", "dovetailor 0.1.0");
+  setup_pins(app);
+  setup_fit(app);
+  setup_plan(app);
+  try {
+    app.parse(argc, argv);
+  } catch (const CLI::Success& e) {
+    return app.exit(e);
+  } catch (const CLI::ParseError& e) {
+    app.exit(e);
+    return 2;
+  } catch (const InputError& e) {
+    fmt::print(stderr, "dovetailor: {}\n", e.what());
+    return 2;
+  } catch (const std::exception& e) {
+    fmt::print(stderr, "dovetailor: internal error: {}\n", e.what());
+    return 3;
+  }
+  return 0;
+}
+
+}  // namespace dovetailor::cli
