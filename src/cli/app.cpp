@@ -21,6 +21,17 @@ int run_cli(int argc, const char* const* argv) {
   setup_pins(app);
   setup_fit(app);
   setup_plan(app);
+  std::string names;
+  bool known = false;
+  for (const auto* sub : app.get_subcommands({})) {
+    names += (names.empty() ? "" : ", ") + sub->get_name();
+    known = known || (argc > 1 && sub->get_name() == argv[1]);
+  }
+  if (argc > 1 && argv[1][0] != '-' && !known) {
+    fmt::print(stderr, "dovetailor: unknown command \"{}\"; the commands are: {}\n", argv[1],
+               names);
+    return 2;
+  }
   try {
     app.parse(argc, argv);
   } catch (const CLI::Success& e) {
