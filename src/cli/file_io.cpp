@@ -3,10 +3,13 @@
 #include <cerrno>
 #include <cstdio>
 #include <cstring>
+#include <fcntl.h>
 #include <filesystem>
 #include <fstream>
 #include <random>
 #include <sstream>
+#include <unistd.h>
+#include <utility>
 
 #include <dovetailor/error.hpp>
 
@@ -27,31 +30,59 @@ std::string read_text_file(const std::string& path, std::size_t max_bytes) {
   return text;
 }
 
-void write_file_atomically(const std::string& path, const std::string& content, bool force) {
+AtomicFile::AtomicFile(std::string path, bool force) : path_(std::move(path)) {
   namespace fs = std::filesystem;
   std::error_code ec;
-  if (fs::exists(path, ec) && !force)
-    throw InputError("already exists; give --force to replace it", {path});
-  const fs::path target(path);
+  if (fs::exists(path_, ec) && !force)
+    throw InputError("already exists; give --force to replace it", {path_});
+  if (fs::is_directory(path_, ec)) throw InputError("is a folder, not a file", {path_});
+  const fs::path target(path_);
   const fs::path folder = target.has_parent_path() ? target.parent_path() : fs::path(".");
   std::random_device random;
-  const fs::path temp =
-      folder / ("." + target.filename().string() + ".tmp" + std::to_string(random() % 1000000));
-  {
-    std::ofstream out(temp, std::ios::binary | std::ios::trunc);
-    if (!out) throw InputError(std::string("cannot write here: ") + std::strerror(errno), {path});
-    out.write(content.data(), static_cast<std::streamsize>(content.size()));
-    out.flush();
-    if (!out) {
-      fs::remove(temp, ec);
-      throw InputError("writing failed (disk full?); the old file is unchanged", {path});
-    }
+  for (int attempt = 0; attempt < 100 && fd_ < 0; ++attempt) {
+    temp_ =
+        (folder / ("." + target.filename().string() + ".tmp" + std::to_string(random() % 1000000)))
+            .string();
+    fd_ = ::open(temp_.c_str(), O_WRONLY | O_CREAT | O_EXCL | O_CLOEXEC, 0644);
+    if (fd_ < 0 && errno != EEXIST) break;
   }
-  fs::rename(temp, target, ec);
-  if (ec) {
-    fs::remove(temp, ec);
-    throw InputError("cannot replace the file: " + ec.message(), {path});
+  if (fd_ < 0) throw InputError(std::string("cannot write here: ") + std::strerror(errno), {path_});
+}
+
+AtomicFile::~AtomicFile() {
+  if (fd_ >= 0) ::close(fd_);
+  if (!committed_) ::unlink(temp_.c_str());
+}
+
+void AtomicFile::write(std::string_view text) {
+  while (!text.empty()) {
+    const ssize_t n = ::write(fd_, text.data(), text.size());
+    if (n < 0 && errno == EINTR) continue;
+    if (n <= 0)
+      throw InputError(
+          std::string("writing failed (") + std::strerror(errno) + "); the old file is unchanged",
+          {path_});
+    text.remove_prefix(static_cast<std::size_t>(n));
   }
+}
+
+void AtomicFile::commit() {
+  if (::fsync(fd_) != 0 || ::close(fd_) != 0) {
+    fd_ = -1;
+    throw InputError(
+        std::string("writing failed (") + std::strerror(errno) + "); the old file is unchanged",
+        {path_});
+  }
+  fd_ = -1;
+  if (::rename(temp_.c_str(), path_.c_str()) != 0)
+    throw InputError(std::string("cannot replace the file: ") + std::strerror(errno), {path_});
+  committed_ = true;
+}
+
+void write_file_atomically(const std::string& path, const std::string& content, bool force) {
+  AtomicFile file(path, force);
+  file.write(content);
+  file.commit();
 }
 
 }  // namespace dovetailor::cli
