@@ -19,7 +19,4 @@ std::string type_name(DovetailType type);
 // "both", "left", "right".
 std::string sides_name(AngledSides sides);
 
-// The safety cautions every printed output carries, wrapped for 80 columns.
-const std::string& cautions_text();
-
 }  // namespace dovetailor::cli

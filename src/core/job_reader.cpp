@@ -5,6 +5,7 @@
 
 #include <dovetailor/dovetail_section.hpp>
 #include <dovetailor/job_reader.hpp>
+#include <dovetailor/length_text.hpp>
 #include <dovetailor/pin_gauge.hpp>
 
 #include "toml_fields.hpp"
@@ -381,10 +382,7 @@ class JobReader {
     const int angled = d.sides == AngledSides::Both ? 2 : 1;
     const double bottom = design_width_bottom(d);
     const double top = width_top_from_bottom(d.type, bottom, d.depth, d.angle, angled);
-    const auto show = [&](double mm) {
-      return fmt::format("{:.{}f} {}", from_mm(mm, job_.units), length_decimals(job_.units),
-                         unit_symbol(job_.units));
-    };
+    const auto show = [&](double mm) { return length_text(mm, job_.units); };
     if (bottom <= 0 || top <= 0)
       throw InputError(
           fmt::format("a {} dovetail {} deep at {} deg with this width has a {} of {}: the "

@@ -1,13 +1,12 @@
 #include <fmt/format.h>
 
+#include <dovetailor/length_text.hpp>
+
 #include "planner_detail.hpp"
 
 namespace dovetailor::detail {
 
-std::string PlanContext::show(double mm) const {
-  return fmt::format("{:.{}f} {}", from_mm(mm, units()), length_decimals(units()),
-                     unit_symbol(units()));
-}
+std::string PlanContext::show(double mm) const { return length_text(mm, units()); }
 
 bool engages_plus_x(const PlanContext& ctx, Side side) {
   // A female's flank is outboard of the cutter; a male's flank (and the

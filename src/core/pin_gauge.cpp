@@ -2,6 +2,7 @@
 
 #include <fmt/format.h>
 
+#include <dovetailor/length_text.hpp>
 #include <dovetailor/pin_gauge.hpp>
 
 namespace dovetailor {
@@ -70,10 +71,7 @@ double largest_pin(double depth, double chamfer, double angle) {
 std::vector<std::string> pin_problems(const DovetailSection& section, double pin_diameter,
                                       double corner_radius, Units units) {
   std::vector<std::string> problems;
-  const int places = length_decimals(units);
-  const auto show = [&](double mm) {
-    return fmt::format("{:.{}f} {}", from_mm(mm, units), places, unit_symbol(units));
-  };
+  const auto show = [&](double mm) { return length_text(mm, units); };
   const double usable = section.depth - section.chamfer;
   const double h = contact_height(pin_diameter, section.angle);
   if (h >= usable) {

@@ -2,15 +2,13 @@
 
 #include <nlohmann/json.hpp>
 
+#include <dovetailor/length_text.hpp>
 #include <dovetailor/plan_report.hpp>
 
 namespace dovetailor {
 namespace {
 
-double len(double mm, Units u) {
-  const double scale = std::pow(10.0, length_decimals(u) + 2);
-  return std::round(from_mm(mm, u) * scale) / scale;
-}
+double len(double mm, Units u) { return length_value(mm, u); }
 
 const char* role_key(PassRole r) {
   switch (r) {

@@ -2,6 +2,7 @@
 
 #include <fmt/format.h>
 
+#include <dovetailor/length_text.hpp>
 #include <dovetailor/plan_report.hpp>
 
 namespace dovetailor {
@@ -9,12 +10,8 @@ namespace {
 
 struct Show {
   Units u;
-  std::string num(double mm) const {
-    std::string s = fmt::format("{:.{}f}", from_mm(mm, u), length_decimals(u));
-    if (s.starts_with("-") && s.find_first_not_of("-0.") == std::string::npos) s.erase(0, 1);
-    return s;
-  }
-  std::string len(double mm) const { return num(mm) + " " + std::string(unit_symbol(u)); }
+  std::string num(double mm) const { return length_number(mm, u); }
+  std::string len(double mm) const { return length_text(mm, u); }
   std::string feed(double mm_per_min) const {
     return u == Units::Inch ? fmt::format("{:.1f}", from_mm(mm_per_min, u))
                             : fmt::format("{:.0f}", mm_per_min);

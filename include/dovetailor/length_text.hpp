@@ -1,0 +1,18 @@
+#pragma once
+
+#include <string>
+
+#include <dovetailor/units.hpp>
+
+namespace dovetailor {
+
+// Lengths as people read them: in `units`, at the micrometer resolution of
+// those units (4 decimals inch, 3 mm), never "-0.0000".
+std::string length_number(double mm, Units units);       // "0.5170"
+std::string length_text(double mm, Units units);         // "0.5170 in"
+std::string signed_length_text(double mm, Units units);  // "+0.0010 in"
+
+// A length for JSON output: in `units`, rounded two decimals finer than shown.
+double length_value(double mm, Units units);
+
+}  // namespace dovetailor
