@@ -292,6 +292,30 @@ TEST(planner, manual_machines_mill_conventionally) {
   EXPECT_FALSE(p.warnings.empty());
 }
 
+// With M3 (clockwise seen from above) a tool feeding +Y with the work on its
+// right (+X) side climbs: it is left of the work, the case cutter
+// compensation calls G41, and "G41 with M3 is climb milling" is the shop rule
+// (common practice, no source). A female's right flank lies on the tool's +X
+// side, so conventional milling there must feed -Y.
+TEST(planner, milling_direction_follows_the_spindle_rotation) {
+  Job job = base_job();
+  job.machine.kind = MachineKind::Manual;  // always conventional
+  const Plan p = plan(job);
+  for (const auto* pass : all_passes(p)) {
+    if (pass->tool != 2 || !pass->side || pass->role != PassRole::Finish) continue;
+    const auto& m = pass->moves;
+    double feed_dy = 0;
+    for (std::size_t i = 1; i < m.size(); ++i)
+      if (m[i].kind == MoveKind::Feed && std::abs(m[i].to.z - m[i - 1].to.z) < 1e-12)
+        feed_dy = m[i].to.y - m[i - 1].to.y;
+    if (*pass->side == Side::Right) {
+      EXPECT_LT(feed_dy, 0) << "female right flank, conventional: feed -Y";
+    } else {
+      EXPECT_GT(feed_dy, 0) << "female left flank, conventional: feed +Y";
+    }
+  }
+}
+
 TEST(planner, deep_dovetail_is_cut_in_levels_from_the_top) {
   Job job = base_job();
   job.tools[1].flute_length = to_mm(0.25, Units::Inch);

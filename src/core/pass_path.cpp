@@ -16,13 +16,13 @@ bool engages_plus_x(const PlanContext& ctx, Side side) {
 }
 
 Along direction_for(bool plus_x_engaged, MillingMode mode) {
-  const bool conventional = mode != MillingMode::Climb;
-  return plus_x_engaged == conventional ? Along::Forward : Along::Back;
+  const bool climb = mode == MillingMode::Climb;
+  return plus_x_engaged == climb ? Along::Forward : Along::Back;
 }
 
 MillingMode mode_of(bool plus_x_engaged, Along along) {
-  return (along == Along::Forward) == plus_x_engaged ? MillingMode::Conventional
-                                                     : MillingMode::Climb;
+  return (along == Along::Forward) == plus_x_engaged ? MillingMode::Climb
+                                                     : MillingMode::Conventional;
 }
 
 void add_moves(const PlanContext& ctx, Pass& pass, double tool_radius, Along along,

@@ -46,8 +46,10 @@ enum class Along { Forward, Back };  // +Y, -Y
 bool engages_plus_x(const PlanContext& ctx, Side side);
 
 // The direction that gives `mode` with the spindle turning clockwise (M3)
-// seen from above: on the tool's +X side the teeth move toward -Y, so feeding
-// +Y there is conventional milling.
+// seen from above. A tooth on the tool's +X side moves toward -Y, so when the
+// tool feeds +Y with the work on its +X side each tooth enters the uncut
+// stock ahead at full chip thickness and leaves thin: climb milling (the
+// tool is left of the work, as with G41). Feeding -Y there is conventional.
 Along direction_for(bool plus_x_engaged, MillingMode mode);
 MillingMode mode_of(bool plus_x_engaged, Along along);
 
