@@ -18,6 +18,8 @@ int main(int argc, char** argv) {
   dovetailor::cli::setup_pins(app);
   dovetailor::cli::setup_fit(app);
   dovetailor::cli::setup_plan(app);
+  dovetailor::cli::setup_gcode(app);
+  dovetailor::cli::setup_trim(app);
   try {
     app.parse(argc, argv);
   } catch (const CLI::Success& e) {
