@@ -95,10 +95,10 @@ double lead_length(const Plan& plan);
 enum class Coolant { Flood, Mist, Off };
 
 struct ProgramOptions {
-  std::string date{};           // written as given in the header; empty: no date line
-  std::optional<Units> units{}; // default: program_units(post, job units)
+  std::string date{};            // written as given in the header; empty: no date line
+  std::optional<Units> units{};  // default: program_units(post, job units)
   Coolant coolant = Coolant::Flood;
-  std::string title{};          // first header line; empty: "program for <part>"
+  std::string title{};  // first header line; empty: "program for <part>"
 };
 
 // A compensated finishing pass (SizingStyle::CutterCompensation) is written

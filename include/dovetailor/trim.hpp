@@ -29,9 +29,9 @@ namespace dovetailor {
 std::size_t find_checkpoint(const Plan& plan, std::string_view text);
 
 struct TrimRequest {
-  std::size_t checkpoint = 0;    // index in plan.checkpoints
-  double reading = 0;            // measured pin reading (or width without a gauge), mm
-  std::optional<double> depth{}; // measured depth from the top face, mm
+  std::size_t checkpoint = 0;     // index in plan.checkpoints
+  double reading = 0;             // measured pin reading (or width without a gauge), mm
+  std::optional<double> depth{};  // measured depth from the top face, mm
 };
 
 enum class TrimVerdict {
@@ -71,7 +71,7 @@ struct Trim {
   std::size_t checkpoint = 0;
   char letter = 'A';
   double reading = 0;
-  double reading_error = 0;  // measured - expected
+  double reading_error = 0;        // measured - expected
   std::vector<FlankStock> flanks;  // the angled flanks
   TrimVerdict verdict = TrimVerdict::OnSize;
   // Width at the base plane as cut now minus the final width: positive is
@@ -83,7 +83,11 @@ struct Trim {
   // is more than the plan's last cut, finish, and spring when the job has
   // it; one checkpoint after the last pass expecting the final reading).
   // Empty operations unless verdict == Trim. Each flank's passes take off
-  // exactly its stock now.
+  // exactly its stock now, measured from where the cutter last ran: the
+  // process left (stock now - planned) more than the plan expected, so the
+  // positions move toward the flank by that too and the last pass runs at
+  // the plan's finishing position moved by it (the same as the offset change
+  // below does in the full program).
   Plan passes;
   // The change to the dovetail cutter's wear offset (D) or to each flank's
   // parameter (#101/#102) that makes the full program, continued from this

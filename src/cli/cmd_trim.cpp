@@ -69,7 +69,8 @@ void setup_trim(CLI::App& app) {
   auto* cmd = app.add_subcommand(
       "trim", "After measuring at a checkpoint: stock per flank, and the passes that finish it.");
   cmd->add_option("job", o->job_file, "Job file (TOML)")->required();
-  cmd->add_option("--checkpoint", o->checkpoint, "Checkpoint number (1, 2, ...) or letter (A, B, ...)")
+  cmd->add_option("--checkpoint", o->checkpoint,
+                  "Checkpoint number (1, 2, ...) or letter (A, B, ...)")
       ->required();
   cmd->add_option("--reading", o->reading, "Measured pin reading, in the job's units")->required();
   cmd->add_option("--depth", o->depth, "Measured depth from the top face, in the job's units");

@@ -22,14 +22,15 @@ std::vector<std::string> post_folders() {
 
 Post load_post(const std::string& name_or_path) {
   namespace fs = std::filesystem;
-  const bool is_path = name_or_path.find('/') != std::string::npos ||
-                       name_or_path.ends_with(".toml");
+  const bool is_path =
+      name_or_path.find('/') != std::string::npos || name_or_path.ends_with(".toml");
   if (is_path) return read_post(read_text_file(name_or_path), name_or_path);
   std::string searched;
   for (const auto& folder : post_folders()) {
     const fs::path file = fs::path(folder) / (name_or_path + ".toml");
     std::error_code ec;
-    if (fs::is_regular_file(file, ec)) return read_post(read_text_file(file.string()), file.string());
+    if (fs::is_regular_file(file, ec))
+      return read_post(read_text_file(file.string()), file.string());
     searched += (searched.empty() ? "" : ", ") + folder;
   }
   throw InputError("no post \"" + name_or_path + "\" in " + searched +

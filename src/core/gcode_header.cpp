@@ -102,11 +102,11 @@ std::vector<std::string> header_lines(const Plan& plan, const Post& post,
   out.push_back(fmt::format("units: {}, {}; feeds in {}/min", unit_name(units),
                             units == Units::Inch ? "G20" : "G21", unit_symbol(units)));
   out.push_back(
-      "work zero, set in the active work offset: top face of the stock, on the dovetail centre line, "
+      "work zero, set in the active work offset: top face of the stock, on the dovetail centre "
+      "line, "
       "at the front end; the slide runs along +Y");
-  out.push_back(fmt::format("stock {} x {} x {}, X by Y by Z, below Z0",
-                            s.num(job.stock.width), s.num(job.stock.length),
-                            s.len(job.stock.height)));
+  out.push_back(fmt::format("stock {} x {} x {}, X by Y by Z, below Z0", s.num(job.stock.width),
+                            s.num(job.stock.length), s.len(job.stock.height)));
   out.push_back(fmt::format(
       "target: {} dovetail {:g} deg, {}, depth {}, width {} at the base plane, {} at the top",
       female ? "female" : "male", t.angle,
@@ -118,11 +118,10 @@ std::vector<std::string> header_lines(const Plan& plan, const Post& post,
                               s.len(t.gib_allowance)));
   if (job.gauge) {
     const auto& tol = job.dovetail.tolerance;
-    out.push_back(fmt::format("final reading {} of {}: {}, good from {} to {}",
-                              method_words(plan.final_reading), s.len(job.gauge->pin_diameter),
-                              s.len(plan.final_reading.value),
-                              s.num(plan.final_reading.value + tol.lower),
-                              s.len(plan.final_reading.value + tol.upper)));
+    out.push_back(fmt::format(
+        "final reading {} of {}: {}, good from {} to {}", method_words(plan.final_reading),
+        s.len(job.gauge->pin_diameter), s.len(plan.final_reading.value),
+        s.num(plan.final_reading.value + tol.lower), s.len(plan.final_reading.value + tol.upper)));
   }
   out.push_back("tools:");
   for (const auto& op : plan.operations) {
@@ -135,8 +134,9 @@ std::vector<std::string> header_lines(const Plan& plan, const Post& post,
     if (tool && !seen) out.push_back(tool_words(*tool, op, s));
   }
   if (!post.tool_length_offset)
-    out.push_back("no tool length offsets: touch off each tool on the top face, Z0, after the "
-                  "change");
+    out.push_back(
+        "no tool length offsets: touch off each tool on the top face, Z0, after the "
+        "change");
   switch (options.coolant) {
     case Coolant::Flood:
       out.push_back(fmt::format("coolant: flood, M{}, as asked when the program was written",
@@ -167,9 +167,10 @@ std::vector<std::string> checkpoint_lines(const Plan& plan, const Checkpoint& c,
   const Job& job = plan.job;
   const int n = plan.target.angled_flanks();
   std::vector<std::string> out;
-  out.push_back(fmt::format("CHECKPOINT {}: {}, after pass {}. Spindle stopped: clear the "
-                            "chips, deburr the edges the pins touch.",
-                            letter, c.name, c.after_pass));
+  out.push_back(
+      fmt::format("CHECKPOINT {}: {}, after pass {}. Spindle stopped: clear the "
+                  "chips, deburr the edges the pins touch.",
+                  letter, c.name, c.after_pass));
   if (job.gauge) {
     out.push_back(fmt::format("Measure {} of {}: expect {}, final {}.", method_words(c.expected),
                               s.len(job.gauge->pin_diameter), s.len(c.expected.value),
@@ -184,13 +185,15 @@ std::vector<std::string> checkpoint_lines(const Plan& plan, const Checkpoint& c,
   if (job.gauge) out.push_back("Rule, in job units: " + correction_rule(plan, c));
   switch (style) {
     case SizingStyle::CutterCompensation:
-      out.push_back("To correct: change the wear offset on D of the dovetail cutter, or run "
-                    "dovetailor trim with the reading.");
+      out.push_back(
+          "To correct: change the wear offset on D of the dovetail cutter, or run "
+          "dovetailor trim with the reading.");
       break;
     case SizingStyle::Parameters:
-      out.push_back(fmt::format("To correct: change #{} for the left flank or #{} for the right, or run dovetailor "
-                                "trim with the reading.",
-                                flank_parameter(Side::Left), flank_parameter(Side::Right)));
+      out.push_back(fmt::format(
+          "To correct: change #{} for the left flank or #{} for the right, or run dovetailor "
+          "trim with the reading.",
+          flank_parameter(Side::Left), flank_parameter(Side::Right)));
       break;
     case SizingStyle::Plain:
       out.push_back("To correct: run dovetailor trim with the reading.");
@@ -201,8 +204,7 @@ std::vector<std::string> checkpoint_lines(const Plan& plan, const Checkpoint& c,
 
 std::string ProgramShow::num(double mm) const {
   std::string text = fmt::format("{:.{}f}", from_mm(mm, units), length_decimals(units));
-  if (text.starts_with("-") && text.find_first_not_of("-0.") == std::string::npos)
-    text.erase(0, 1);
+  if (text.starts_with("-") && text.find_first_not_of("-0.") == std::string::npos) text.erase(0, 1);
   return text;
 }
 

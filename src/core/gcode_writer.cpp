@@ -34,7 +34,8 @@ std::string role_words(PassRole role) {
 
 const Tool& tool_of(const Plan& plan, int number) {
   const Tool* tool = find_tool(plan.job, number);
-  if (!tool) throw std::logic_error(fmt::format("G-code writer: the plan uses unknown T{}", number));
+  if (!tool)
+    throw std::logic_error(fmt::format("G-code writer: the plan uses unknown T{}", number));
   return *tool;
 }
 
@@ -51,8 +52,8 @@ class Writer {
   std::string run() {
     for (const auto& line : detail::header_lines(plan_, post_, options_, units_, style_))
       comment(line);
-    std::vector<Word> setup = {{'G', units_ == Units::Inch ? 20.0 : 21.0}, {'G', 17}, {'G', 90},
-                               {'G', 94}};
+    std::vector<Word> setup = {
+        {'G', units_ == Units::Inch ? 20.0 : 21.0}, {'G', 17}, {'G', 90}, {'G', 94}};
     if (post_.cutter_compensation) setup.push_back({'G', 40});
     if (post_.tool_length_offset) setup.push_back({'G', 49});
     if (post_.canned_cycles) setup.push_back({'G', 80});
@@ -206,8 +207,8 @@ class Writer {
     const auto& m = pass.moves;
     if (m.size() != 5 || m[0].kind != MoveKind::Rapid || m[1].kind != MoveKind::Rapid ||
         m[2].kind != MoveKind::Feed || m[3].kind != MoveKind::Feed || m[4].kind != MoveKind::Rapid)
-      throw std::logic_error(
-          fmt::format("G-code writer: pass {} is not a straight cut between open ends", pass.number));
+      throw std::logic_error(fmt::format(
+          "G-code writer: pass {} is not a straight cut between open ends", pass.number));
     const double y0 = m[2].to.y, y1 = m[3].to.y;
     const double dir = y1 > y0 ? 1.0 : -1.0;
     const double off = contour_offset(plan_, pass), lead = lead_length(plan_);

@@ -19,29 +19,33 @@ const Operation& undercut_of(const Plan& plan) {
   throw std::logic_error("trim: the plan has no undercut operation");
 }
 
-// A copy of the plan's finishing pass `finish` (stock 0) moved to leave
-// `stock` on its flank, cutting `taken`; the lines the pass runs on away from
-// the flank (a front-open return) move to the stock the pass starts from.
-Pass shifted(const Plan& plan, const Pass& finish, PassRole role, double stock, double taken,
-             double z_correction, int number) {
+// A copy of the plan's finishing pass `finish` (stock 0) that leaves `left`
+// on its flank and cuts `taken`. `error` is how much more stock the cutter
+// left than planned at the checkpoint (stock now - planned): the process
+// left that much, so every position moves toward the flank by it. The lines
+// a pass runs on away from the flank (a front-open return) move with the
+// stock the pass starts from.
+Pass shifted(const Plan& plan, const Pass& finish, PassRole role, double left, double taken,
+             double error, double z_correction, int number) {
   const double toward = toward_flank(plan.target.type, *finish.side);
   Pass p = finish;
   p.number = number;
   p.role = role;
-  p.x = finish.x - toward * stock;
+  p.x = finish.x - toward * (left - error);
   p.z = finish.z + z_correction;
   p.radial_step = taken;
-  p.stock_left = stock;
+  p.stock_left = left;
   p.deflection = 0;
   for (auto& m : p.moves) {
     const bool on_line = std::abs(m.to.x - finish.x_at(m.to.y)) < tiny;
-    m.to.x -= toward * (on_line ? stock : stock + taken);
+    m.to.x -= toward * ((on_line ? left : left + taken) - error);
     if (std::abs(m.to.z - finish.z) < tiny) m.to.z = p.z;
   }
   return p;
 }
 
 Plan corrective_plan(const Plan& plan, const Checkpoint& c, double stock, double z_correction) {
+  const double error = stock - c.remaining_per_flank;
   const Operation& undercut = undercut_of(plan);
   Operation op = undercut;
   op.title = "Trim the flanks to size";
@@ -53,7 +57,7 @@ Plan corrective_plan(const Plan& plan, const Checkpoint& c, double stock, double
   int number = 1;
   const auto add = [&](PassRole role, double left, double taken) {
     for (const Pass* f : finishes)
-      op.passes.push_back(shifted(plan, *f, role, left, taken, z_correction, number++));
+      op.passes.push_back(shifted(plan, *f, role, left, taken, error, z_correction, number++));
   };
   const double last_cut = finishes.empty() ? 0 : finishes.front()->radial_step;
   if (stock > last_cut + tiny) {
@@ -93,7 +97,8 @@ std::size_t find_checkpoint(const Plan& plan, std::string_view text) {
                       {}, "--checkpoint");
   };
   if (text.size() == 1 && std::isalpha(static_cast<unsigned char>(text[0]))) {
-    const auto i = static_cast<std::size_t>(std::toupper(static_cast<unsigned char>(text[0])) - 'A');
+    const auto i =
+        static_cast<std::size_t>(std::toupper(static_cast<unsigned char>(text[0])) - 'A');
     if (i < n) return i;
     throw refuse();
   }
@@ -143,7 +148,8 @@ Trim trim(const Plan& plan, const TrimRequest& request) {
   }
   t.offset_change = -(stock - c.remaining_per_flank);
   for (const Pass* p : all_passes(plan))
-    if (p->role != PassRole::Rough && t.first_finishing_pass == 0) t.first_finishing_pass = p->number;
+    if (p->role != PassRole::Rough && t.first_finishing_pass == 0)
+      t.first_finishing_pass = p->number;
   t.passes = plan;
   t.passes.operations.clear();
   t.passes.checkpoints.clear();

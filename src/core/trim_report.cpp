@@ -48,7 +48,8 @@ std::string travel_words(const Pass& p) {
     const auto& b = p.moves[i].to;
     if (p.moves[i].kind == MoveKind::Feed && std::abs(a.z - p.z) < 1e-9 &&
         std::abs(b.z - p.z) < 1e-9 && std::abs(b.y - a.y) > 1e-9)
-      return b.y > a.y ? "from the front end toward the back" : "from the back end toward the front";
+      return b.y > a.y ? "from the front end toward the back"
+                       : "from the back end toward the front";
   }
   return "along the slide";
 }
@@ -65,8 +66,8 @@ std::string format_trim(const Plan& plan, const Trim& t, SizingStyle style) {
   const bool female = plan.target.type == DovetailType::Female;
   const auto& tol = plan.job.dovetail.tolerance;
   std::string out;
-  out += fmt::format("Trim after checkpoint {}: {} (after pass {})\n", t.letter, c.name,
-                     c.after_pass);
+  out +=
+      fmt::format("Trim after checkpoint {}: {} (after pass {})\n", t.letter, c.name, c.after_pass);
   out += wrapped(fmt::format("Reading {}, expected {}: {} {}.", s.len(t.reading),
                              s.len(c.expected.value), s.len(std::abs(t.reading_error)),
                              t.reading_error >= 0 ? "larger" : "smaller"));
@@ -79,10 +80,11 @@ std::string format_trim(const Plan& plan, const Trim& t, SizingStyle style) {
     case TrimVerdict::OverCut:
       out += wrapped(fmt::format(
           "STOP: do not cut on. The flanks are cut past size: the part is already {} {} size "
-          "at the base plane ({} on each angled flank), outside the tolerance {} to {}. A trim "
+          "at the base plane ({} on {}), outside the tolerance {} to {}. A trim "
           "cannot put metal back; decide with the mating part (for instance a thicker gib).",
-          s.len(std::abs(t.width_error)), female ? "over" : "under",
-          s.len(std::abs(per_flank)), signed_len(s, tol.lower), signed_len(s, tol.upper)));
+          s.len(std::abs(t.width_error)), female ? "over" : "under", s.len(std::abs(per_flank)),
+          t.flanks.size() == 2 ? "each angled flank" : "the angled flank", signed_len(s, tol.lower),
+          signed_len(s, tol.upper)));
       break;
     case TrimVerdict::OnSize:
       out += wrapped(fmt::format(
@@ -91,8 +93,8 @@ std::string format_trim(const Plan& plan, const Trim& t, SizingStyle style) {
           signed_len(s, t.width_error), signed_len(s, tol.lower), signed_len(s, tol.upper)));
       break;
     case TrimVerdict::Trim: {
-      out += wrapped(fmt::format("Safe to continue: {} of stock is left on each angled flank.",
-                                 s.len(per_flank)));
+      out += wrapped(fmt::format("Safe to continue: {} of stock is left on {}.", s.len(per_flank),
+                                 t.flanks.size() == 2 ? "each angled flank" : "the angled flank"));
       out += "Corrective passes with the dovetail cutter:\n";
       out += fmt::format("  {:>4} {:<11} {:<12} {:>9} {:>9} {:>8} {:>8}\n", "Pass", "Role", "Side",
                          "X", "Z", "Step", "Left");
@@ -153,11 +155,13 @@ std::string format_trim(const Plan& plan, const Trim& t, SizingStyle style) {
         break;
       }
       case SizingStyle::Plain:
-        line = "The full program for this post has no compensation or parameters: use the "
-               "corrective passes.";
+        line =
+            "The full program for this post has no compensation or parameters: use the "
+            "corrective passes.";
         break;
     }
-    if (std::abs(t.offset_change) > 1e-9 || style == SizingStyle::Plain) out += "\n" + wrapped(line);
+    if (std::abs(t.offset_change) > 1e-9 || style == SizingStyle::Plain)
+      out += "\n" + wrapped(line);
   }
   return out;
 }
@@ -176,9 +180,10 @@ std::string trim_sheet(const Plan& plan, const Trim& t) {
   std::vector<std::pair<Side, double>> dial;
   for (const auto& p : t.passes.operations.front().passes) {
     const double toward = toward_flank(plan.target.type, *p.side);
-    auto it = std::find_if(dial.begin(), dial.end(), [&](const auto& d) { return d.first == *p.side; });
-    if (it == dial.end()) {
-      dial.push_back({*p.side, p.x - toward * (c.remaining_per_flank - p.stock_left)});
+    auto it =
+        std::find_if(dial.begin(), dial.end(), [&](const auto& d) { return d.first == *p.side; });
+    if (it == dial.end()) {  // each pass moves toward the flank by its step
+      dial.push_back({*p.side, p.x - toward * p.radial_step});
       it = dial.end() - 1;
     }
     const double move = p.x - it->second;
@@ -188,8 +193,8 @@ std::string trim_sheet(const Plan& plan, const Trim& t) {
             : fmt::format("move {} {}, {} the flank", s.len(std::abs(move)), move > 0 ? "+X" : "-X",
                           move * toward > 0 ? "toward" : "away from");
     out += wrapped(fmt::format("{}. {}, {}: set X {} ({}), Z {}; feed {}.", p.number,
-                               role_words(p.role), side_words(*p.side), s.num(p.x), how,
-                               s.num(p.z), travel_words(p)));
+                               role_words(p.role), side_words(*p.side), s.num(p.x), how, s.num(p.z),
+                               travel_words(p)));
     it->second = p.x;
   }
   out += wrapped(fmt::format("Then measure: expect {}.", s.len(plan.final_reading.value)));
