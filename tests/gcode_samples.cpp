@@ -5,17 +5,32 @@
 // every line with X, Y or Z words must reach, null where an axis word is an
 // expression the reader cannot evaluate.
 //
+// It also writes the program of every sample job for every shipped post
+// (SAMPLE.POST.ngc) with its expected end points (SAMPLE.POST.points.json),
+// derived here from the plan's moves and the path rules documented in
+// gcode_writer.hpp (lead-in and lead-out of compensated passes, the length
+// offset move, the park move), not from the writer's output; and the
+// compensation data the read-back checks the RS274NGC entry/exit rules with
+// (SAMPLE.POST.comp.json). One more program, fixture-slide-female with the
+// full post less cutter compensation, exercises the #parameter style.
+//
 // Usage: gcode_samples OUTPUT_DIR
 
+#include <algorithm>
+#include <cmath>
 #include <filesystem>
 #include <fstream>
 #include <iostream>
+#include <map>
 #include <sstream>
 #include <string>
 #include <vector>
 
 #include <nlohmann/json.hpp>
 
+#include <dovetailor/gcode_writer.hpp>
+#include <dovetailor/job_reader.hpp>
+#include <dovetailor/planner.hpp>
 #include <dovetailor/program_text.hpp>
 
 namespace {
@@ -98,6 +113,120 @@ void write_sample(const std::string& post_dir, const std::string& out_dir, const
   std::ofstream(out_dir + "/" + name + ".points.json") << s.points.dump(1) << "\n";
 }
 
+// The end points a program for `plan` must reach, in program units, in the
+// order of its motion lines; null for a line whose X is an expression.
+struct Expected {
+  const Post& post;
+  Units units;
+  json points = json::array();
+  Point3 at{};
+  std::map<char, std::string> last;
+
+  std::string text(double mm) const { return format_length(mm, post, units); }
+  void point() {
+    points.push_back(
+        json::array({from_mm(at.x, units), from_mm(at.y, units), from_mm(at.z, units)}));
+  }
+  void move(Point3 to, bool x_expression = false) {
+    bool moved = x_expression;
+    const auto axis = [&](char letter, double value) {
+      const std::string t = text(value);
+      if (last[letter] != t) moved = true;
+      last[letter] = t;
+    };
+    if (!x_expression) axis('X', to.x);
+    axis('Y', to.y);
+    axis('Z', to.z);
+    if (x_expression) last['X'] = "expression";
+    if (!moved) return;
+    at = to;
+    if (x_expression)
+      points.push_back(json());
+    else
+      point();
+  }
+};
+
+void write_job_program(const std::string& out_dir, const std::string& file_name, const Job& job,
+                       const Post& post) {
+  const Plan plan = dovetailor::plan(job);
+  const std::string program = write_program(plan, post, {.date = "2000-01-01"});
+  const Units units = program_units(post, job.units);
+  Expected e{.post = post, .units = units, .last = {}};
+  const bool female = plan.target.type == DovetailType::Female;
+  const bool comp = post.cutter_compensation && job.dovetail.ends == Ends::Open;
+  const bool params = !comp && post.parameters;
+  double cutter_radius = 0;
+  json radius = json::object();
+  int tool = -1;
+  for (const auto& op : plan.operations) {
+    const Tool* t = find_tool(job, op.tool);
+    if (op.kind == OperationKind::Undercut) {
+      cutter_radius = t->diameter / 2;
+      radius[std::to_string(t->number)] = from_mm(cutter_radius, units);
+    }
+    if (op.tool != tool) {  // the length-offset move to the safe height
+      e.last = {{'Z', e.text(plan.safe_z)}};
+      e.at.z = plan.safe_z;
+      e.point();
+    }
+    tool = op.tool;
+    for (const auto& pass : op.passes) {
+      const bool sized =
+          op.kind == OperationKind::Undercut && pass.side && pass.role != PassRole::Rough;
+      if (sized && comp) {
+        // The programmed path is the flank line: the axis moved toward the
+        // flank by R (R sqrt(1 + m^2) across X on a taper).
+        const bool right = *pass.side == Side::Right;
+        const double toward = (female == right) ? 1.0 : -1.0;
+        const double off =
+            toward * cutter_radius * std::sqrt(1 + pass.taper_slope * pass.taper_slope);
+        const auto& m = pass.moves;
+        const double y0 = m[2].to.y, y1 = m[3].to.y, dir = y1 > y0 ? 1.0 : -1.0;
+        const double lead = cutter_radius + plan.clearance;
+        const auto line = [&](double y, double z) { return Point3{pass.x_at(y) + off, y, z}; };
+        e.move(line(y0 - dir * lead, m[0].to.z));
+        e.move(line(y0 - dir * lead, m[1].to.z));
+        e.move(line(y0 - dir * lead, m[2].to.z));
+        e.move(line(y0, pass.z));
+        e.move(line(y1, pass.z));
+        e.move(line(y1 + dir * lead, pass.z));
+        e.move(line(y1 + dir * lead, m[4].to.z));
+        continue;
+      }
+      for (const auto& m : pass.moves) e.move(m.to, sized && params);
+    }
+  }
+  double park = 0;
+  for (const auto& t : job.tools) park = std::max(park, t.diameter / 2);
+  e.move({e.at.x, e.at.y, plan.safe_z});
+  e.move({0, -(park + plan.clearance), plan.safe_z});
+  std::ofstream(out_dir + "/" + file_name + ".ngc") << program;
+  std::ofstream(out_dir + "/" + file_name + ".points.json") << e.points.dump(1) << "\n";
+  std::ofstream(out_dir + "/" + file_name + ".comp.json")
+      << json{{"radius", radius}, {"stock_y", {0, from_mm(job.stock.length, units)}}}.dump(1)
+      << "\n";
+}
+
+void write_job_programs(const std::string& source, const std::string& out_dir) {
+  const char* samples[] = {"fixture-slide-female", "fixture-slide-male", "stop-block-male",
+                           "height-stop-half-female"};
+  const char* posts[] = {"rs274ngc-full", "small-control", "iso6983-numbered"};
+  for (const char* sample : samples) {
+    const std::string job_file = source + "/samples/" + sample + ".toml";
+    const Job job = read_job(read(job_file), job_file);
+    for (const char* name : posts) {
+      const Post post = read_post(read(source + "/post/" + name + ".toml"), name);
+      write_job_program(out_dir, std::string(sample) + "." + name, job, post);
+    }
+  }
+  const std::string job_file = source + "/samples/fixture-slide-female.toml";
+  Post post = read_post(read(source + "/post/rs274ngc-full.toml"), "rs274ngc-full");
+  post.cutter_compensation = false;
+  write_job_program(out_dir, "fixture-slide-female.parameters", read_job(read(job_file), job_file),
+                    post);
+}
+
 }  // namespace
 
 int main(int argc, char** argv) {
@@ -111,6 +240,7 @@ int main(int argc, char** argv) {
     write_sample(post_dir, argv[1], "rs274ngc-full", Units::Inch);
     write_sample(post_dir, argv[1], "small-control", Units::Millimetre);
     write_sample(post_dir, argv[1], "iso6983-numbered", Units::Millimetre);
+    write_job_programs(DOVETAILOR_SOURCE_DIR, argv[1]);
   } catch (const std::exception& e) {
     std::cerr << "gcode_samples: " << e.what() << "\n";
     return 1;

@@ -32,6 +32,7 @@ TEST(post, full_rs274ngc_post_allows_every_feature) {
   EXPECT_TRUE(post.cutter_compensation);
   EXPECT_TRUE(post.parameters);
   EXPECT_TRUE(post.optional_stop);
+  EXPECT_TRUE(post.canned_cycles);
   EXPECT_EQ(post.arc_format, ArcFormat::Centre);
   // RS274NGC line limit, 256 characters (NISTIR 6556, from memory: section 3.3).
   EXPECT_EQ(post.max_line_length, 256);
@@ -47,6 +48,7 @@ TEST(post, small_control_post_has_no_compensation_changer_or_parameters) {
   EXPECT_FALSE(post.cutter_compensation);
   EXPECT_FALSE(post.parameters);
   EXPECT_FALSE(post.optional_stop);
+  EXPECT_FALSE(post.canned_cycles);
   EXPECT_EQ(post.arc_format, ArcFormat::Radius);
   EXPECT_EQ(post.coolant.mist, std::nullopt);
   EXPECT_EQ(post.coolant.flood, 8);

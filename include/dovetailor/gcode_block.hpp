@@ -82,7 +82,8 @@ std::string format_length(double mm, const Post& post, Units units);
 // Throws InputError naming the post key when the post does not allow what the
 // block asks for (G41/G42/G40/D without cutter_compensation, G43/G49/H without
 // tool_length_offset, M6 without tool_changer, M1 without optional_stop,
-// expressions or settings without parameters, I J K or R against arc_format,
+// G80 to G89 without canned_cycles, expressions or settings without
+// parameters, I J K or R against arc_format,
 // units the control does not accept, a words line longer than
 // max_line_length, line numbers past 99999). A malformed block (unknown
 // letter, a letter twice, a negative feed, an N word) is a programming mistake

@@ -72,6 +72,7 @@ struct Post {
   bool cutter_compensation = true;  // G41/G42 Dn, G40
   bool parameters = true;           // numbered parameters #n and [expressions]
   bool optional_stop = true;        // M1
+  bool canned_cycles = true;        // G80 and the canned cycles G81-G89
   bool two_digit_codes = false;     // G01, M03 instead of G1, M3 (common on ISO 6983 controls)
   ArcFormat arc_format = ArcFormat::Centre;
   CoolantCodes coolant;

@@ -21,6 +21,8 @@ int run_cli(int argc, const char* const* argv) {
   setup_pins(app);
   setup_fit(app);
   setup_plan(app);
+  setup_gcode(app);
+  setup_trim(app);
   std::string names;
   bool known = false;
   for (const auto* sub : app.get_subcommands({})) {

@@ -10,5 +10,7 @@ namespace dovetailor::cli {
 void setup_pins(CLI::App& app);
 void setup_fit(CLI::App& app);
 void setup_plan(CLI::App& app);
+void setup_gcode(CLI::App& app);
+void setup_trim(CLI::App& app);
 
 }  // namespace dovetailor::cli

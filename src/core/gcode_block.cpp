@@ -116,6 +116,10 @@ void check_allowed(const Block& block, const Post& post, Units units) {
     if (!post.tool_changer && has('M', 6))
       refuse(post, "tool_changer",
              "this control has no tool changer (M6); stop with M0 for a manual tool change");
+    if (!post.canned_cycles && w.letter == 'G' && w.expression.empty() && w.value >= 80 &&
+        w.value < 90)
+      refuse(post, "canned_cycles",
+             "this control has no canned cycles (G80 to G89); leave the cancel out");
     if (!post.optional_stop && has('M', 1))
       refuse(post, "optional_stop", "this control has no optional stop (M1); use M0");
     if (post.arc_format == ArcFormat::Radius &&

@@ -48,6 +48,7 @@ class PostReader {
     post_.cutter_compensation = top.flag("cutter_compensation").value_or(post_.cutter_compensation);
     post_.parameters = top.flag("parameters").value_or(post_.parameters);
     post_.optional_stop = top.flag("optional_stop").value_or(post_.optional_stop);
+    post_.canned_cycles = top.flag("canned_cycles").value_or(post_.canned_cycles);
     post_.two_digit_codes = top.flag("two_digit_codes").value_or(post_.two_digit_codes);
     // 256 is the RS274NGC limit; below 32 not even a short move with its N word fits.
     post_.max_line_length =

@@ -4,7 +4,15 @@
 // spec of what the post's control accepts, and against the end points the
 // writer meant to reach.
 //
-// Usage: node check_program.js PROGRAM SPEC.json [POINTS.json]
+// Usage: node check_program.js PROGRAM SPEC.json [POINTS.json [COMP.json]]
+// COMP.json ({"radius": {"<D number>": radius}, "stock_y": [front, back]}, in
+// program units) turns on the cutter radius compensation checks of the NIST
+// RS274NGC Interpreter, Version 3 (NISTIR 6556, 2000; section 3.5.14 "Cutter
+// Radius Compensation", from memory): compensation is not turned on while it
+// is on; the first move after G41/G42 is a straight line (an arc there is an
+// error) at least as long as the compensation radius; here also, both ends of
+// the entry and of the G40 exit lie outside the stock (beyond its ends by the
+// radius), and compensation is off at the end of the program.
 // Exits 0 when every check passes; otherwise prints each problem with its
 // line number and exits 1 (2 for a usage or setup problem).
 'use strict';
@@ -31,6 +39,14 @@ if (!programPath || !specPath) {
 const text = fs.readFileSync(programPath, 'utf8');
 const spec = JSON.parse(fs.readFileSync(specPath, 'utf8'));
 const expectedPoints = pointsPath ? JSON.parse(fs.readFileSync(pointsPath, 'utf8')) : null;
+const compPath = process.argv[5];
+const comp = compPath ? JSON.parse(fs.readFileSync(compPath, 'utf8')) : null;
+const nist = '(NISTIR 6556, 3.5.14)';
+let compOn = false;
+let compRadius = 0;
+let entryPending = false;
+let exitPending = false;
+let dRegister = null;
 
 const problems = [];
 const problem = (lineNo, message) => problems.push(`${programPath}:${lineNo}: ${message}`);
@@ -158,9 +174,38 @@ lines.forEach((raw, index) => {
       problem(lineNo, `${w.letter}${w.raw} should be a whole number`);
   }
 
+  if (comp) {
+    const gs = words.filter((w) => w.letter === 'G' && w.expression === undefined).map((w) => w.value);
+    const d = words.find((w) => w.letter === 'D');
+    if (d) dRegister = d.value;
+    if (gs.includes(41) || gs.includes(42)) {
+      if (compOn) problem(lineNo, `G41/G42 while compensation is already on ${nist}`);
+      compOn = true;
+      entryPending = true;
+      compRadius = comp.radius[String(dRegister)];
+      if (compRadius === undefined) problem(lineNo, `compensation with D${dRegister}, no radius known for it`);
+    }
+    if (gs.includes(40)) {
+      exitPending = compOn;  // G40 in the modal set-up cancels nothing
+      compOn = false;
+    }
+  }
   if (!hasAxis) return;
   const start = { ...position };
   Object.assign(position, lineAxes);
+  if (comp && (entryPending || exitPending)) {
+    const what = entryPending ? 'entry' : 'exit';
+    if (motion !== 0 && motion !== 1) problem(lineNo, `compensation ${what} is not a straight move ${nist}`);
+    const length = Math.hypot(position.X - start.X, position.Y - start.Y);
+    if (entryPending && !(length >= compRadius - 1e-9))
+      problem(lineNo, `compensation entry ${length} long, shorter than the radius ${compRadius} ${nist}`);
+    const [front, back] = comp.stock_y;
+    for (const y of [start.Y, position.Y])
+      if (y > front - compRadius + 1e-9 && y < back + compRadius - 1e-9)
+        problem(lineNo, `compensation ${what} at Y${y}, not outside the stock by the radius`);
+    entryPending = false;
+    exitPending = false;
+  }
   // Arcs: the centre must be equally far from both ends (RS274NGC refuses a
   // difference above 0.0002 in / 0.002 mm, NISTIR 6556, from memory).
   if ((motion === 2 || motion === 3) && !expressionAxis) {
@@ -192,6 +237,7 @@ lines.forEach((raw, index) => {
   }
 });
 
+if (comp && compOn) problem(lines.length, `the program ends with compensation on ${nist}`);
 if (expectedPoints && pointIndex !== expectedPoints.length)
   problem(lines.length, `${pointIndex} moves read, ${expectedPoints.length} expected`);
 

@@ -1,0 +1,119 @@
+#pragma once
+
+#include <cstddef>
+#include <optional>
+#include <string>
+#include <string_view>
+#include <vector>
+
+#include <dovetailor/gcode_writer.hpp>
+#include <dovetailor/plan.hpp>
+
+namespace dovetailor {
+
+// The measure-and-trim loop: after measuring at one of the plan's
+// checkpoints, how much stock each angled flank really has, whether it is
+// safe to go on, and the finishing passes that take the part from that state
+// to the final size. Pure: no I/O.
+//
+// A pin reading cannot tell the flanks apart, so the error is shared equally
+// between the angled flanks (the checkpoint's correction_per_reading: -1/2
+// for a two-pin female, +1/2 for a two-pin male, -1/+1 with one pin):
+//   stock now = checkpoint stock + (measured - expected) * correction_per_reading.
+// Sensitivity of the reading to one flank moved laterally by d is d (domain
+// brief, "Measuring with pins").
+
+// The checkpoint's index (0-based) in plan.checkpoints from its number
+// (1-based, "2") or its letter as the text plan prints it ("B" or "b").
+// Throws InputError (field "--checkpoint") naming the valid choices.
+std::size_t find_checkpoint(const Plan& plan, std::string_view text);
+
+struct TrimRequest {
+  std::size_t checkpoint = 0;     // index in plan.checkpoints
+  double reading = 0;             // measured pin reading (or width without a gauge), mm
+  std::optional<double> depth{};  // measured depth from the top face, mm
+};
+
+enum class TrimVerdict {
+  OnSize,   // within the width tolerance: nothing to cut
+  Trim,     // stock left: the corrective passes take it off
+  OverCut,  // cut past size beyond the tolerance: stop
+};
+
+struct FlankStock {
+  Side side = Side::Left;
+  double planned = 0;  // lateral stock the plan expects here, mm
+  double now = 0;      // lateral stock from the reading; negative: cut past size
+  double error() const { return now - planned; }
+
+  bool operator==(const FlankStock&) const = default;
+};
+
+// The depth reading against the checkpoint's expected depth. The tolerance
+// is the width tolerance band (the job gives no depth tolerance). A shallow
+// floor beyond it is corrected by programming the trim passes lower by the
+// error (z_correction < 0); lowering the cutter that forms floor and flank
+// does not change the pin reading (the corner stays at the large radius) but
+// narrows a female mouth by 2 dz cot a toward its nominal. A deep floor cannot
+// be undone: z_correction stays 0 and the report says so.
+struct DepthCheck {
+  double measured = 0;
+  double expected = 0;
+  double tolerance = 0;
+  double z_correction = 0;  // added to the trim passes' Z, mm
+  double error() const { return measured - expected; }
+  bool beyond() const { return error() > tolerance || error() < -tolerance; }
+
+  bool operator==(const DepthCheck&) const = default;
+};
+
+struct Trim {
+  std::size_t checkpoint = 0;
+  char letter = 'A';
+  double reading = 0;
+  double reading_error = 0;        // measured - expected
+  std::vector<FlankStock> flanks;  // the angled flanks
+  TrimVerdict verdict = TrimVerdict::OnSize;
+  // Width at the base plane as cut now minus the final width: positive is
+  // wider. Over size for a female and under size for a male when cut past.
+  double width_error = 0;
+  std::optional<DepthCheck> depth;
+  // The corrective passes as a plan of their own (the job, target and final
+  // reading of the original; one operation with semi-finish when the stock
+  // is more than the plan's last cut, finish, and spring when the job has
+  // it; one checkpoint after the last pass expecting the final reading).
+  // Empty operations unless verdict == Trim. Each flank's passes take off
+  // exactly its stock now, measured from where the cutter last ran: the
+  // process left (stock now - planned) more than the plan expected, so the
+  // positions move toward the flank by that too and the last pass runs at
+  // the plan's finishing position moved by it (the same as the offset change
+  // below does in the full program).
+  Plan passes;
+  // The change to the dovetail cutter's wear offset (D) or to each flank's
+  // parameter (#101/#102) that makes the full program, continued from this
+  // checkpoint, do the same: -(stock now - planned stock). Negative cuts deeper.
+  double offset_change = 0;
+  // The first finishing pass of the full program, to rerun from after the
+  // last checkpoint.
+  int first_finishing_pass = 0;
+
+  bool operator==(const Trim&) const = default;
+};
+
+// Throws InputError (field "--reading") for a reading that is not finite or
+// not positive, and (field "--depth") for such a depth.
+Trim trim(const Plan& plan, const TrimRequest& request);
+
+// The trim as text for an 80-column terminal, in the job's units: the
+// checkpoint and reading, the stock per flank, the verdict (an over-cut says
+// by how much the part is already over or under size and to stop), the depth
+// check, the corrective passes with the reading to expect after them, and the
+// offset change for the full program in `style` (D wear or #n).
+std::string format_trim(const Plan& plan, const Trim& trim, SizingStyle style);
+
+// Lines for a manual machine: per pass the cross-slide setting and the move
+// from the current setting per flank, in the job's units, approached from the
+// same direction as before; then the reading to expect.
+std::string trim_sheet(const Plan& plan, const Trim& trim);
+
+}  // namespace dovetailor

@@ -1,0 +1,83 @@
+// dovetailor gcode: the RS-274 program for a job, through a post definition.
+
+#include <ctime>
+#include <filesystem>
+
+#include <fmt/format.h>
+
+#include <dovetailor/error.hpp>
+#include <dovetailor/gcode_writer.hpp>
+#include <dovetailor/job_reader.hpp>
+#include <dovetailor/planner.hpp>
+
+#include "commands.hpp"
+#include "file_io.hpp"
+#include "post_lookup.hpp"
+#include "program_output.hpp"
+
+namespace dovetailor::cli {
+
+std::string today() {
+  const std::time_t now = std::time(nullptr);
+  std::tm local{};
+  localtime_r(&now, &local);
+  char text[16];
+  std::strftime(text, sizeof text, "%Y-%m-%d", &local);
+  return text;
+}
+
+Coolant parse_coolant(const std::string& word) {
+  if (word == "flood") return Coolant::Flood;
+  if (word == "mist") return Coolant::Mist;
+  if (word == "off") return Coolant::Off;
+  throw InputError("give flood, mist or off, not \"" + word + "\"", {}, "--coolant");
+}
+
+// Refuses to write the program over the job file it was made from.
+void refuse_job_file(const std::string& output, const std::string& job_file) {
+  namespace fs = std::filesystem;
+  std::error_code ec;
+  if (fs::exists(output, ec) && fs::equivalent(output, job_file, ec))
+    throw InputError("is the job file; give another output file", {output}, "-o");
+}
+
+namespace {
+
+struct GcodeOptions {
+  std::string job_file;
+  std::string post = "rs274ngc-full";
+  std::string output;
+  std::string coolant = "flood";
+  bool force = false;
+};
+
+void run_gcode(const GcodeOptions& o) {
+  const Job job = read_job(read_text_file(o.job_file), o.job_file);
+  const Post post = load_post(o.post);
+  const Plan p = plan(job);
+  const std::string program =
+      write_program(p, post, {.date = today(), .coolant = parse_coolant(o.coolant)});
+  if (o.output.empty()) {
+    fmt::print("{}", program);
+    return;
+  }
+  refuse_job_file(o.output, o.job_file);
+  write_file_atomically(o.output, program, o.force);
+}
+
+}  // namespace
+
+void setup_gcode(CLI::App& app) {
+  auto o = std::make_shared<GcodeOptions>();
+  auto* cmd = app.add_subcommand(
+      "gcode", "The RS-274 program for a job, with a stop at every pin checkpoint.");
+  cmd->add_option("job", o->job_file, "Job file (TOML)")->required();
+  cmd->add_option("--post", o->post,
+                  "Post name (in the post folder) or path of a post file; default rs274ngc-full");
+  cmd->add_option("-o,--output", o->output, "Write the program to this file (default: stdout)");
+  cmd->add_option("--coolant", o->coolant, "flood (default), mist or off");
+  cmd->add_flag("--force", o->force, "Replace the output file if it exists");
+  cmd->callback([o] { run_gcode(*o); });
+}
+
+}  // namespace dovetailor::cli

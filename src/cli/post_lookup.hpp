@@ -1,0 +1,21 @@
+#pragma once
+
+#include <string>
+#include <vector>
+
+#include <dovetailor/post.hpp>
+
+namespace dovetailor::cli {
+
+// The post named on the command line. A value with a '/' or ending in
+// ".toml" is a file path; anything else is a name looked up as NAME.toml in,
+// in order: $DOVETAILOR_POST_DIR (when set, the only place looked), the
+// folder ../share/dovetailor/post next to the executable (an installed
+// copy), and the source tree's post/ folder compiled in as the default.
+// Throws InputError (field "--post") listing the folders searched.
+Post load_post(const std::string& name_or_path);
+
+// The folders searched for a post name, in order.
+std::vector<std::string> post_folders();
+
+}  // namespace dovetailor::cli

@@ -1,0 +1,32 @@
+#pragma once
+
+// Shared by the G-code writer's source files. Internal to the core library.
+
+#include <string>
+#include <vector>
+
+#include <dovetailor/gcode_writer.hpp>
+
+namespace dovetailor::detail {
+
+// Lengths for comments, in the program's units: "0.3750 in".
+struct ProgramShow {
+  Units units;
+  std::string num(double mm) const;
+  std::string len(double mm) const;
+  std::string feed(double mm_per_min) const;  // "3.9 in/min"
+};
+
+// `text` cut at spaces into lines of at most `width` characters.
+std::vector<std::string> wrap_words(const std::string& text, std::size_t width);
+
+// The header comment lines (not yet wrapped).
+std::vector<std::string> header_lines(const Plan& plan, const Post& post,
+                                      const ProgramOptions& options, Units units,
+                                      SizingStyle style);
+
+// The comment lines written before a checkpoint's stop.
+std::vector<std::string> checkpoint_lines(const Plan& plan, const Checkpoint& checkpoint,
+                                          char letter, Units units, SizingStyle style);
+
+}  // namespace dovetailor::detail

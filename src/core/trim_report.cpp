@@ -1,0 +1,204 @@
+// The trim as text: the report for the terminal and the manual sheet.
+
+#include <algorithm>
+#include <cmath>
+
+#include <fmt/format.h>
+
+#include <dovetailor/trim.hpp>
+
+#include "gcode_writer_detail.hpp"
+
+namespace dovetailor {
+namespace {
+
+using detail::ProgramShow;
+
+std::string side_words(Side side) { return side == Side::Left ? "left flank" : "right flank"; }
+
+std::string role_words(PassRole role) {
+  switch (role) {
+    case PassRole::Rough:
+      return "rough";
+    case PassRole::SemiFinish:
+      return "semi-finish";
+    case PassRole::Finish:
+      return "finish";
+    case PassRole::Spring:
+      return "spring";
+  }
+  return "";
+}
+
+std::string signed_len(const ProgramShow& s, double mm) {
+  const std::string text = s.len(std::abs(mm));
+  return (mm < 0 && s.num(std::abs(mm)) != s.num(0) ? "-" : "+") + text;
+}
+
+std::string wrapped(const std::string& text, const std::string& indent = "") {
+  std::string out;
+  for (const auto& line : detail::wrap_words(text, 80 - indent.size())) out += indent + line + "\n";
+  return out;
+}
+
+// Travel of a pass's cut along Y, in words.
+std::string travel_words(const Pass& p) {
+  for (std::size_t i = 1; i < p.moves.size(); ++i) {
+    const auto& a = p.moves[i - 1].to;
+    const auto& b = p.moves[i].to;
+    if (p.moves[i].kind == MoveKind::Feed && std::abs(a.z - p.z) < 1e-9 &&
+        std::abs(b.z - p.z) < 1e-9 && std::abs(b.y - a.y) > 1e-9)
+      return b.y > a.y ? "from the front end toward the back"
+                       : "from the back end toward the front";
+  }
+  return "along the slide";
+}
+
+const Checkpoint& checkpoint_of(const Plan& plan, const Trim& t) {
+  return plan.checkpoints.at(t.checkpoint);
+}
+
+}  // namespace
+
+std::string format_trim(const Plan& plan, const Trim& t, SizingStyle style) {
+  const ProgramShow s{plan.job.units};
+  const Checkpoint& c = checkpoint_of(plan, t);
+  const bool female = plan.target.type == DovetailType::Female;
+  const auto& tol = plan.job.dovetail.tolerance;
+  std::string out;
+  out +=
+      fmt::format("Trim after checkpoint {}: {} (after pass {})\n", t.letter, c.name, c.after_pass);
+  out += wrapped(fmt::format("Reading {}, expected {}: {} {}.", s.len(t.reading),
+                             s.len(c.expected.value), s.len(std::abs(t.reading_error)),
+                             t.reading_error >= 0 ? "larger" : "smaller"));
+  for (const auto& f : t.flanks)
+    out += fmt::format("  {}: stock now {} (planned {}, error {})\n", side_words(f.side),
+                       signed_len(s, f.now), s.len(f.planned), signed_len(s, f.error()));
+  out += "\n";
+  const double per_flank = t.flanks.empty() ? 0 : t.flanks.front().now;
+  switch (t.verdict) {
+    case TrimVerdict::OverCut:
+      out += wrapped(fmt::format(
+          "STOP: do not cut on. The flanks are cut past size: the part is already {} {} size "
+          "at the base plane ({} on {}), outside the tolerance {} to {}. A trim "
+          "cannot put metal back; decide with the mating part (for instance a thicker gib).",
+          s.len(std::abs(t.width_error)), female ? "over" : "under", s.len(std::abs(per_flank)),
+          t.flanks.size() == 2 ? "each angled flank" : "the angled flank", signed_len(s, tol.lower),
+          signed_len(s, tol.upper)));
+      break;
+    case TrimVerdict::OnSize:
+      out += wrapped(fmt::format(
+          "On size: the width is {} from the final, within the tolerance {} to {}. Nothing to "
+          "cut; do not take the remaining passes.",
+          signed_len(s, t.width_error), signed_len(s, tol.lower), signed_len(s, tol.upper)));
+      break;
+    case TrimVerdict::Trim: {
+      out += wrapped(fmt::format("Safe to continue: {} of stock is left on {}.", s.len(per_flank),
+                                 t.flanks.size() == 2 ? "each angled flank" : "the angled flank"));
+      out += "Corrective passes with the dovetail cutter:\n";
+      out += fmt::format("  {:>4} {:<11} {:<12} {:>9} {:>9} {:>8} {:>8}\n", "Pass", "Role", "Side",
+                         "X", "Z", "Step", "Left");
+      for (const auto& p : t.passes.operations.front().passes)
+        out += fmt::format("  {:>4} {:<11} {:<12} {:>9} {:>9} {:>8} {:>8}\n", p.number,
+                           role_words(p.role), side_words(*p.side),
+                           s.num(p.x) + (p.taper_slope != 0 ? "*" : ""), s.num(p.z),
+                           s.num(p.radial_step), s.num(p.stock_left));
+      out += wrapped("X is the tool axis at the front end (* runs at the gib's taper), Z the tip.",
+                     "  ");
+      out += wrapped(fmt::format("Expect after the trim: {} (good from {} to {}).",
+                                 s.len(plan.final_reading.value),
+                                 s.num(plan.final_reading.value + tol.lower),
+                                 s.len(plan.final_reading.value + tol.upper)));
+      break;
+    }
+  }
+  if (t.depth) {
+    const auto& d = *t.depth;
+    std::string line = fmt::format("Depth {}, expected {}: ", s.len(d.measured), s.len(d.expected));
+    if (!d.beyond())
+      line += fmt::format("within {}.", s.len(d.tolerance));
+    else if (d.error() < 0)
+      line += fmt::format(
+          "{} shallow, more than the {} allowed. Z correction {}: the trim passes are "
+          "programmed that much lower. Lowering the cutter leaves the pin reading as it is (the "
+          "corner stays at the cutter's large radius) and brings the top width toward nominal; "
+          "only the strip the cutter sweeps is lowered.",
+          s.len(-d.error()), s.len(d.tolerance), signed_len(s, d.z_correction));
+    else
+      line += fmt::format(
+          "{} deep, more than the {} allowed. This cannot be undone: the trim passes keep the "
+          "planned Z; check the tool length before cutting on.",
+          s.len(d.error()), s.len(d.tolerance));
+    out += "\n" + wrapped(line);
+  }
+  if (t.verdict != TrimVerdict::OverCut) {
+    const bool last = c.remaining_per_flank <= 0;
+    const std::string then =
+        last ? fmt::format("then run the program again from pass {} (the first finishing pass)",
+                           t.first_finishing_pass)
+             : "then continue the program from the stop";
+    std::string line;
+    switch (style) {
+      case SizingStyle::CutterCompensation:
+        line = fmt::format(
+            "Or in the full program: change the wear offset of D{} by {} on the radius ({} on "
+            "the diameter), {}.",
+            plan.operations.empty() ? 0 : plan.operations.back().tool,
+            signed_len(s, t.offset_change), signed_len(s, 2 * t.offset_change), then);
+        break;
+      case SizingStyle::Parameters: {
+        std::string which;
+        for (const auto& f : t.flanks)
+          which += fmt::format("{}#{}", which.empty() ? "" : " and ", flank_parameter(f.side));
+        line = fmt::format("Or in the full program: add {} to {}, {}.",
+                           signed_len(s, t.offset_change), which, then);
+        break;
+      }
+      case SizingStyle::Plain:
+        line =
+            "The full program for this post has no compensation or parameters: use the "
+            "corrective passes.";
+        break;
+    }
+    if (std::abs(t.offset_change) > 1e-9 || style == SizingStyle::Plain)
+      out += "\n" + wrapped(line);
+  }
+  return out;
+}
+
+std::string trim_sheet(const Plan& plan, const Trim& t) {
+  const ProgramShow s{plan.job.units};
+  const Checkpoint& c = checkpoint_of(plan, t);
+  std::string out = fmt::format("Trim sheet after checkpoint {} ({}), lengths in {}\n", t.letter,
+                                c.name, unit_name(plan.job.units));
+  if (t.verdict != TrimVerdict::Trim) return out + format_trim(plan, t, SizingStyle::Plain);
+  out += wrapped(
+      "X is the cross-slide (tool axis at the front end), Z the tip below the top face. "
+      "Conventional milling only; approach every dial setting from the same direction as the "
+      "passes before; lock the axes that do not move; measure with the spindle stopped.");
+  // The cross-slide stands where the last pass at the checkpoint ran on each flank.
+  std::vector<std::pair<Side, double>> dial;
+  for (const auto& p : t.passes.operations.front().passes) {
+    const double toward = toward_flank(plan.target.type, *p.side);
+    auto it =
+        std::find_if(dial.begin(), dial.end(), [&](const auto& d) { return d.first == *p.side; });
+    if (it == dial.end()) {  // each pass moves toward the flank by its step
+      dial.push_back({*p.side, p.x - toward * p.radial_step});
+      it = dial.end() - 1;
+    }
+    const double move = p.x - it->second;
+    const std::string how =
+        s.num(std::abs(move)) == s.num(0)
+            ? "same setting"
+            : fmt::format("move {} {}, {} the flank", s.len(std::abs(move)), move > 0 ? "+X" : "-X",
+                          move * toward > 0 ? "toward" : "away from");
+    out += wrapped(fmt::format("{}. {}, {}: set X {} ({}), Z {}; feed {}.", p.number,
+                               role_words(p.role), side_words(*p.side), s.num(p.x), how, s.num(p.z),
+                               travel_words(p)));
+    it->second = p.x;
+  }
+  out += wrapped(fmt::format("Then measure: expect {}.", s.len(plan.final_reading.value)));
+  return out;
+}
+
+}  // namespace dovetailor

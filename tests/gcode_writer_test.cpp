@@ -1,0 +1,196 @@
+#include <cmath>
+#include <sstream>
+#include <vector>
+
+#include <fmt/format.h>
+#include <gtest/gtest.h>
+
+#include <dovetailor/gcode_writer.hpp>
+#include <dovetailor/job_reader.hpp>
+#include <dovetailor/planner.hpp>
+
+#include "test_support.hpp"
+
+namespace dovetailor {
+namespace {
+
+using testing::expect_input_error;
+
+const char* const samples[] = {"fixture-slide-female", "fixture-slide-male", "stop-block-male",
+                               "height-stop-half-female"};
+const char* const posts[] = {"rs274ngc-full", "small-control", "iso6983-numbered"};
+
+Job sample(const std::string& name) {
+  const std::string path = "samples/" + name + ".toml";
+  return read_job(testing::read_source_file(path), path);
+}
+
+Post shipped(const std::string& name) {
+  return read_post(testing::read_source_file("post/" + name + ".toml"), name + ".toml");
+}
+
+std::vector<std::string> lines_of(const std::string& text) {
+  std::vector<std::string> out;
+  std::istringstream in(text);
+  for (std::string line; std::getline(in, line);) out.push_back(line);
+  return out;
+}
+
+bool has_word(const std::string& line, const std::string& word) {
+  const std::string words = line.substr(0, line.find('('));
+  std::istringstream in(words);
+  for (std::string w; in >> w;)
+    if (w == word) return true;
+  return false;
+}
+
+TEST(gcode_writer, every_sample_for_every_post_matches_its_golden_program) {
+  for (const char* name : samples)
+    for (const char* post : posts) {
+      SCOPED_TRACE(std::string(name) + " " + post);
+      const std::string program =
+          write_program(plan(sample(name)), shipped(post), {.date = "2000-01-01"});
+      testing::expect_golden(std::string("tests/golden/gcode/") + name + "." + post + ".ngc",
+                             program);
+    }
+  Post no_compensation = shipped("rs274ngc-full");
+  no_compensation.cutter_compensation = false;
+  testing::expect_golden(
+      "tests/golden/gcode/fixture-slide-female.parameters.ngc",
+      write_program(plan(sample("fixture-slide-female")), no_compensation, {.date = "2000-01-01"}));
+}
+
+// G41 keeps the tool left of the programmed path seen in the direction of
+// travel, G42 right (NISTIR 6556, section 3.5.14, from memory). Checked here
+// with the cross product: the tool lies on the side away from the flank; it
+// is left of travel t when t x (tool - path) points up (+Z).
+TEST(gcode_writer, compensation_side_follows_travel_and_the_material) {
+  for (DovetailType type : {DovetailType::Female, DovetailType::Male})
+    for (Side side : {Side::Left, Side::Right})
+      for (double travel : {1.0, -1.0}) {
+        // Female: the flank is outboard of the cutter; male: inboard.
+        const bool outboard = type == DovetailType::Female;
+        const double flank_dx = (side == Side::Right) == outboard ? 1.0 : -1.0;
+        const double tool_dx = -flank_dx;
+        const double cross_z = 0.0 * 0.0 - travel * tool_dx;  // (0, travel) x (tool_dx, 0)
+        EXPECT_EQ(compensation_code(type, side, travel), cross_z > 0 ? 41 : 42);
+      }
+  // The case spelled out: a female right flank travelling +Y has the tool on
+  // its left.
+  EXPECT_EQ(compensation_code(DovetailType::Female, Side::Right, 1), 41);
+  EXPECT_EQ(compensation_code(DovetailType::Male, Side::Right, 1), 42);
+}
+
+// The compensated path is where the cutter's large diameter meets the finished
+// flank at the tip's height: the flank line of the section (dovetail_section).
+TEST(gcode_writer, compensated_path_lies_on_the_finished_flank) {
+  for (const char* name : {"fixture-slide-female", "fixture-slide-male", "stop-block-male"}) {
+    SCOPED_TRACE(name);
+    const Plan p = plan(sample(name));
+    int checked = 0;
+    for (const Pass* pass : all_passes(p)) {
+      if (pass->role != PassRole::Finish || !pass->side) continue;
+      const double path_x = pass->x + contour_offset(p, *pass);
+      EXPECT_NEAR(path_x, flank_x_at(p.target.flank(*pass->side), pass->z), 1e-9);
+      ++checked;
+    }
+    EXPECT_GT(checked, 0);
+  }
+}
+
+TEST(gcode_writer, lead_in_is_longer_than_the_compensation_radius) {
+  const Plan p = plan(sample("fixture-slide-female"));
+  // NISTIR 6556, 3.5.14 (from memory): the entry move at least the radius.
+  EXPECT_GT(lead_length(p), to_mm(0.5, Units::Inch));
+}
+
+TEST(gcode_writer, every_checkpoint_is_a_stop_with_its_reading_and_the_spindle_restarts) {
+  for (const char* name : samples)
+    for (const char* post_name : posts) {
+      SCOPED_TRACE(std::string(name) + " " + post_name);
+      const Plan p = plan(sample(name));
+      const Post post = shipped(post_name);
+      const auto lines = lines_of(write_program(p, post, {}));
+      const std::string m0 = post.two_digit_codes ? "M00" : "M0";
+      const std::string m3 = post.two_digit_codes ? "M03" : "M3";
+      const std::string m5 = post.two_digit_codes ? "M05" : "M5";
+      const std::string g1 = post.two_digit_codes ? "G01" : "G1";
+      std::size_t stops = 0;
+      for (std::size_t i = 0; i < lines.size(); ++i) {
+        if (!has_word(lines[i], m0) || lines[i].find("checkpoint") == std::string::npos) continue;
+        const Checkpoint& c = p.checkpoints.at(stops++);
+        // The reading to expect is in the comments before the stop, with the
+        // spindle stopped first.
+        const std::string reading = fmt::format(
+            "expect {:.{}f}", from_mm(c.expected.value, p.job.units), length_decimals(p.job.units));
+        bool said = false, stopped = false;
+        for (std::size_t j = i; j-- > 1;) {
+          said = said || lines[j].find(reading) != std::string::npos;
+          if (lines[j].find("CHECKPOINT") == std::string::npos) continue;
+          stopped = has_word(lines[j - 1], m5);
+          break;
+        }
+        EXPECT_TRUE(said) << "line " << i + 1;
+        EXPECT_TRUE(stopped) << "line " << i + 1;
+        // No feed move before the spindle runs again.
+        for (std::size_t j = i + 1; j < lines.size(); ++j) {
+          EXPECT_FALSE(has_word(lines[j], g1)) << "cut before M3 at line " << j + 1;
+          if (has_word(lines[j], m3) || has_word(lines[j], g1)) break;
+        }
+      }
+      EXPECT_EQ(stops, p.checkpoints.size());
+    }
+}
+
+TEST(gcode_writer, optional_stops_where_the_job_asks_and_the_post_has_them) {
+  Job job = sample("fixture-slide-male");
+  job.strategy.optional_stops = true;
+  const Plan p = plan(job);
+  const std::string full = write_program(p, shipped("rs274ngc-full"), {});
+  const std::string small = write_program(p, shipped("small-control"), {});
+  EXPECT_NE(full.find("M1 (checkpoint A"), std::string::npos);
+  EXPECT_EQ(small.find("M1 "), std::string::npos);
+  EXPECT_NE(small.find("M0 (checkpoint A"), std::string::npos);
+}
+
+TEST(gcode_writer, parameter_style_sets_flank_offsets_and_writes_them_in_finishing_passes) {
+  Post post = shipped("rs274ngc-full");
+  post.cutter_compensation = false;
+  const Plan p = plan(sample("fixture-slide-female"));
+  EXPECT_EQ(sizing_style(p, post), SizingStyle::Parameters);
+  const std::string program = write_program(p, post, {});
+  EXPECT_NE(program.find("#101=0. #102=0."), std::string::npos);
+  // Female right flank at +X of the cutter: raising #102 moves the cut to -X,
+  // away from the flank, leaving stock.
+  EXPECT_NE(program.find("X[0.5748 - #102]"), std::string::npos);
+  EXPECT_EQ(program.find("G41"), std::string::npos);
+  EXPECT_NE(program.find("- #102]"), std::string::npos);
+  EXPECT_NE(program.find("+ #101]"), std::string::npos);
+}
+
+TEST(gcode_writer, mist_on_a_post_without_mist_is_refused) {
+  const Plan p = plan(sample("stop-block-male"));
+  expect_input_error(
+      [&] { write_program(p, shipped("small-control"), {.coolant = Coolant::Mist}); },
+      {"coolant", "mist"});
+}
+
+TEST(gcode_writer, writes_in_the_units_asked_for) {
+  const Plan p = plan(sample("stop-block-male"));
+  const std::string inch =
+      write_program(p, shipped("rs274ngc-full"), {.units = Units::Inch, .coolant = Coolant::Off});
+  EXPECT_NE(inch.find("G20 G17"), std::string::npos);
+  EXPECT_EQ(inch.find("M8"), std::string::npos);
+  // 5 mm safe height = 0.1969 in (25.4 mm to the inch, exact).
+  EXPECT_NE(inch.find("Z0.1969"), std::string::npos);
+}
+
+TEST(gcode_writer, lines_fit_80_columns_without_line_numbers) {
+  for (const char* name : samples) {
+    const auto lines = lines_of(write_program(plan(sample(name)), shipped("rs274ngc-full"), {}));
+    for (const auto& line : lines) EXPECT_LE(line.size(), 80u) << line;
+  }
+}
+
+}  // namespace
+}  // namespace dovetailor
