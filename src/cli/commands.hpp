@@ -10,5 +10,6 @@ namespace dovetailor::cli {
 void setup_pins(CLI::App& app);
 void setup_fit(CLI::App& app);
 void setup_plan(CLI::App& app);
+void setup_sheet(CLI::App& app);
 
 }  // namespace dovetailor::cli
