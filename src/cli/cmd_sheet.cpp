@@ -31,14 +31,8 @@ std::string today() {
                      static_cast<unsigned>(day.month()), static_cast<unsigned>(day.day()));
 }
 
-std::string extension_of(const std::string& path) {
-  std::string ext = std::filesystem::path(path).extension().string();
-  for (auto& ch : ext) ch = static_cast<char>(std::tolower(static_cast<unsigned char>(ch)));
-  return ext;
-}
-
 void run_sheet(const SheetCommandOptions& o) {
-  const std::string ext = extension_of(o.output);
+  const std::string ext = output_extension(o.output);
   if (ext != ".txt")
     throw InputError("the sheet is written as .txt; give an output file ending in .txt", {o.output},
                      "-o");

@@ -11,5 +11,6 @@ void setup_pins(CLI::App& app);
 void setup_fit(CLI::App& app);
 void setup_plan(CLI::App& app);
 void setup_sheet(CLI::App& app);
+void setup_draw(CLI::App& app);
 
 }  // namespace dovetailor::cli

@@ -27,6 +27,12 @@ std::string read_text_file(const std::string& path, std::size_t max_bytes) {
   return text;
 }
 
+std::string output_extension(const std::string& path) {
+  std::string ext = std::filesystem::path(path).extension().string();
+  for (auto& ch : ext) ch = static_cast<char>(std::tolower(static_cast<unsigned char>(ch)));
+  return ext;
+}
+
 void write_file_atomically(const std::string& path, const std::string& content, bool force) {
   namespace fs = std::filesystem;
   std::error_code ec;

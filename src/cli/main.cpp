@@ -19,6 +19,7 @@ int main(int argc, char** argv) {
   dovetailor::cli::setup_fit(app);
   dovetailor::cli::setup_plan(app);
   dovetailor::cli::setup_sheet(app);
+  dovetailor::cli::setup_draw(app);
   try {
     app.parse(argc, argv);
   } catch (const CLI::Success& e) {
