@@ -5,6 +5,8 @@
 
 #include <fmt/format.h>
 
+#include <dovetailor/cairo_render.hpp>
+#include <dovetailor/drawing.hpp>
 #include <dovetailor/error.hpp>
 #include <dovetailor/job_reader.hpp>
 #include <dovetailor/planner.hpp>
@@ -21,6 +23,7 @@ struct SheetCommandOptions {
   std::string job_file;
   std::string output;
   std::string date;
+  std::string paper = "letter";
   bool force = false;
 };
 
@@ -33,13 +36,18 @@ std::string today() {
 
 void run_sheet(const SheetCommandOptions& o) {
   const std::string ext = output_extension(o.output);
-  if (ext != ".txt")
-    throw InputError("the sheet is written as .txt; give an output file ending in .txt", {o.output},
-                     "-o");
+  if (ext != ".txt" && ext != ".pdf")
+    throw InputError("give an output file ending in .txt (plain text) or .pdf", {o.output}, "-o");
   const Job job = read_job(read_text_file(o.job_file), o.job_file);
   const Plan p = plan(job);
   const Sheet sheet = build_sheet(p, {.date = o.date.empty() ? today() : o.date});
-  write_file_atomically(o.output, sheet_text(sheet), o.force);
+  if (ext == ".txt") {
+    write_file_atomically(o.output, sheet_text(sheet), o.force);
+    return;
+  }
+  const Drawing drawing = build_drawing(p);
+  write_file_atomically(
+      o.output, sheet_pdf(sheet, &drawing, o.paper == "a4" ? Paper::A4 : Paper::Letter), o.force);
 }
 
 }  // namespace
@@ -52,6 +60,8 @@ void setup_sheet(CLI::App& app) {
   cmd->add_option("-o,--output", o->output, "Output file; the extension picks the format")
       ->required();
   cmd->add_option("--date", o->date, "Date printed in the title block (default: today)");
+  cmd->add_option("--paper", o->paper, "Paper for a PDF: letter (default) or a4")
+      ->check(CLI::IsMember({"letter", "a4"}));
   cmd->add_flag("--force", o->force, "Replace an existing output file");
   cmd->callback([o] { run_sheet(*o); });
 }

@@ -228,7 +228,9 @@ Scene layout_drawing(const Drawing& drawing, double width, double height) {
 
   const bool side_legend = width >= 1.25 * height;
   const double legend_width = side_legend ? std::max(0.3 * width, 62.0) : width - 2 * margin;
-  const double legend_height = side_legend ? 0 : 60;
+  const std::size_t entries =
+      drawing.regions.size() + drawing.outlines.size() + (drawing.pins.empty() ? 0 : 1);
+  const double legend_height = side_legend ? 0 : 10 + 8.5 * static_cast<double>(entries);
   const double top = 24;
   const double area_w = (side_legend ? width - legend_width - margin : width) - 2 * margin;
   const double area_h = height - top - margin - legend_height;
@@ -290,7 +292,6 @@ Scene layout_drawing(const Drawing& drawing, double width, double height) {
       y += 1.25 * text_size;
     }
     ly = std::max(y, ly + 7.5) + 1.0;
-    if (!side_legend && ly > height - margin) ly = height - legend_height + 6;
   };
   const auto rect = [](Point2 p) {
     return std::vector<Point2>{
