@@ -217,7 +217,7 @@ reading_grows = "minus"
 backlash = 0.05
 [machine.datum]
 x = "edge-finder"
-face = "right"
+face = "left"
 edge_finder_diameter = 0.2
 shim = 0.002
 )";
@@ -247,7 +247,7 @@ TEST(job_reader, manual_dials_and_datum_read_in_mm) {
   EXPECT_EQ(m.z.approach, AxisDirection::Minus);
   EXPECT_DOUBLE_EQ(m.z.backlash, 0.05);
   EXPECT_EQ(m.datum.x_method, XDatumMethod::EdgeFinder);
-  EXPECT_EQ(m.datum.x_face, Side::Right);
+  EXPECT_EQ(m.datum.x_face, Side::Left);
   EXPECT_DOUBLE_EQ(m.datum.edge_finder_diameter, 0.2 * 25.4);
   EXPECT_DOUBLE_EQ(m.datum.shim, 0.002 * 25.4);
 }
@@ -298,6 +298,26 @@ TEST(job_reader, manual_keys_are_checked_with_their_lines) {
                  "m.toml");
       },
       {"machine.z_dial", "missing"});
+}
+
+TEST(job_reader, manual_datum_and_approach_must_agree) {
+  const std::string job = valid + manual_tail;
+  // Approaching X settings moving plus, the left face is the one met that way.
+  expect_input_error(
+      [&] { read_job(replace(job, "face = \"left\"", "face = \"right\""), "m.toml"); },
+      {"m.toml" + line_of(job, "face = "), "machine.datum.face", "on the left face"});
+  // The top face is touched off moving down.
+  expect_input_error(
+      [&] {
+        read_job(replace(job, "backlash = 0.05", "backlash = 0.05\napproach = \"plus\""), "m.toml");
+      },
+      {"machine.z_dial.approach", "\"minus\""});
+  // Approaching minus moves the default face to the right.
+  const Job right =
+      read_job(replace(replace(job, "backlash = 0.004", "backlash = 0.004\napproach = \"minus\""),
+                       "face = \"left\"\n", ""),
+               "m.toml");
+  EXPECT_EQ(right.machine.manual->datum.x_face, Side::Right);
 }
 
 TEST(job_reader, manual_without_a_datum_table_touches_off) {

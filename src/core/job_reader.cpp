@@ -331,12 +331,22 @@ class JobReader {
       if (!x_dial) t.fail("x_dial", "missing; a manual machine with dials needs [machine.x_dial]");
       if (!z_dial) t.fail("z_dial", "missing; a manual machine with dials needs [machine.z_dial]");
       ManualFeeds feeds;
-      feeds.x = read_dial(*x_dial, "machine.x_dial");
-      feeds.z = read_dial(*z_dial, "machine.z_dial");
-      if (datum)
-        feeds.datum = read_datum(*datum);
-      else
+      feeds.x = read_dial(*x_dial, "machine.x_dial", std::nullopt);
+      feeds.z = read_dial(*z_dial, "machine.z_dial", AxisDirection::Minus);
+      if (feeds.z.approach != AxisDirection::Minus) {
+        TableReader z(*z_dial, "machine.z_dial", file_);
+        z.fail("approach",
+               "the top face is touched off moving down, so Z settings are reached moving "
+               "\"minus\" as well; give approach = \"minus\"");
+      }
+      // The face met moving in the X approach direction: left moving plus.
+      const Side face = feeds.x.approach == AxisDirection::Plus ? Side::Left : Side::Right;
+      if (datum) {
+        feeds.datum = read_datum(*datum, face);
+      } else {
         feeds.datum.x_method = XDatumMethod::TouchOff;
+        feeds.datum.x_face = face;
+      }
       job_.machine.manual = feeds;
     }
     t.reject_unknown();
@@ -344,7 +354,8 @@ class JobReader {
 
   // One handwheel: a preset, or travel per turn and divisions, in the dial's
   // own units (default the job's), so an inch job can be cut on metric dials.
-  Handwheel read_dial(const toml::table& table, const std::string& path) {
+  Handwheel read_dial(const toml::table& table, const std::string& path,
+                      std::optional<AxisDirection> default_approach) {
     TableReader t(table, path, file_);
     const Units dial_units =
         t.choice<Units>("units", {{"inch", Units::Inch}, {"mm", Units::Millimetre}})
@@ -380,7 +391,7 @@ class JobReader {
           key, {{"plus", AxisDirection::Plus}, {"minus", AxisDirection::Minus}});
     };
     wheel.reading_grows = direction("reading_grows").value_or(AxisDirection::Plus);
-    wheel.approach = direction("approach").value_or(wheel.reading_grows);
+    wheel.approach = direction("approach").value_or(default_approach.value_or(wheel.reading_grows));
     const double backlash =
         t.number("backlash", 0, dial_units == Units::Inch ? 0.1 : 2.5).value_or(0);
     wheel.backlash = to_mm(backlash, dial_units);
@@ -388,14 +399,21 @@ class JobReader {
     return wheel;
   }
 
-  Datum read_datum(const toml::table& table) {
+  // The X zero must be found moving the way every X setting is approached,
+  // so the dial zero has the backlash taken up on the same side: `face`.
+  Datum read_datum(const toml::table& table, Side face) {
     TableReader t(table, "machine.datum", file_);
     Datum d;
     d.x_method = t.choice<XDatumMethod>("x", {{"edge-finder", XDatumMethod::EdgeFinder},
                                               {"touch-off", XDatumMethod::TouchOff}})
                      .value_or(XDatumMethod::EdgeFinder);
     d.x_face =
-        t.choice<Side>("face", {{"left", Side::Left}, {"right", Side::Right}}).value_or(Side::Left);
+        t.choice<Side>("face", {{"left", Side::Left}, {"right", Side::Right}}).value_or(face);
+    if (d.x_face != face)
+      t.fail("face", fmt::format("the X settings are approached moving {}, so X zero must be "
+                                 "found moving that way too: on the {} face",
+                                 face == Side::Left ? "plus" : "minus",
+                                 face == Side::Left ? "left" : "right"));
     if (d.x_method == XDatumMethod::EdgeFinder) {
       if (!t.has("edge_finder_diameter"))
         t.fail("edge_finder_diameter",
