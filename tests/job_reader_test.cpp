@@ -1,3 +1,4 @@
+#include <algorithm>
 #include <fstream>
 #include <sstream>
 
@@ -201,4 +202,130 @@ TEST(job_reader, tables_of_the_wrong_shape_are_refused) {
 }
 
 }  // namespace
+// A manual machine: the valid job with dials and a datum appended. The line of
+// a key in the appended text is the number of lines before it plus one.
+const std::string manual_tail = R"([machine]
+kind = "manual"
+[machine.x_dial]
+preset = "inch-200"
+backlash = 0.004
+[machine.z_dial]
+units = "mm"
+travel_per_turn = 2.5
+divisions = 125
+reading_grows = "minus"
+backlash = 0.05
+[machine.datum]
+x = "edge-finder"
+face = "left"
+edge_finder_diameter = 0.2
+shim = 0.002
+)";
+
+std::string line_of(const std::string& text, const std::string& key) {
+  const auto at = text.find(key);
+  EXPECT_NE(at, std::string::npos) << key;
+  return ":" +
+         std::to_string(std::count(text.begin(), text.begin() + static_cast<long>(at), '\n') + 1) +
+         ":";
+}
+
+TEST(job_reader, manual_dials_and_datum_read_in_mm) {
+  const Job job = read_job(valid + manual_tail, "m.toml");
+  ASSERT_TRUE(job.machine.manual.has_value());
+  const auto& m = *job.machine.manual;
+  // The preset: 0.200 in per turn, 200 graduations (handwheel.hpp, common practice).
+  EXPECT_DOUBLE_EQ(m.x.travel_per_turn, 0.200 * 25.4);
+  EXPECT_EQ(m.x.divisions, 200);
+  EXPECT_EQ(m.x.reading_grows, AxisDirection::Plus);
+  EXPECT_EQ(m.x.approach, AxisDirection::Plus);  // defaults to the way the reading grows
+  EXPECT_DOUBLE_EQ(m.x.backlash, 0.004 * 25.4);
+  // A metric dial on an inch job keeps its own units.
+  EXPECT_DOUBLE_EQ(m.z.travel_per_turn, 2.5);
+  EXPECT_EQ(m.z.divisions, 125);
+  EXPECT_EQ(m.z.reading_grows, AxisDirection::Minus);
+  EXPECT_EQ(m.z.approach, AxisDirection::Minus);
+  EXPECT_DOUBLE_EQ(m.z.backlash, 0.05);
+  EXPECT_EQ(m.datum.x_method, XDatumMethod::EdgeFinder);
+  EXPECT_EQ(m.datum.x_face, Side::Left);
+  EXPECT_DOUBLE_EQ(m.datum.edge_finder_diameter, 0.2 * 25.4);
+  EXPECT_DOUBLE_EQ(m.datum.shim, 0.002 * 25.4);
+}
+
+TEST(job_reader, manual_keys_are_checked_with_their_lines) {
+  const std::string job = valid + manual_tail;
+  const std::string extra = replace(job, "backlash = 0.004", "backlash = 0.004\nlash = 1");
+  expect_input_error([&] { read_job(extra, "m.toml"); },
+                     {"m.toml" + line_of(extra, "lash = 1"), "machine.x_dial.lash", "unknown key",
+                      "travel_per_turn, divisions"});
+  expect_input_error(
+      [&] { read_job(replace(job, "preset = \"inch-200\"", "preset = \"inch-300\""), "m.toml"); },
+      {"m.toml" + line_of(job, "preset"), "machine.x_dial.preset", "\"inch-200\", \"inch-100\""});
+  expect_input_error(
+      [&] {
+        read_job(replace(job, "preset = \"inch-200\"", "preset = \"inch-200\"\ndivisions = 100"),
+                 "m.toml");
+      },
+      {"machine.x_dial.divisions", "preset"});
+  expect_input_error(
+      [&] { read_job(replace(job, "divisions = 125", "divisions = 0"), "m.toml"); },
+      {"m.toml" + line_of(job, "divisions = 125"), "machine.z_dial.divisions", "from 10 to 2000"});
+  expect_input_error([&] { read_job(replace(job, "travel_per_turn = 2.5\n", ""), "m.toml"); },
+                     {"machine.z_dial.travel_per_turn", "missing", "in mm"});
+  expect_input_error(
+      [&] {
+        read_job(replace(job, "reading_grows = \"minus\"", "reading_grows = \"up\""), "m.toml");
+      },
+      {"m.toml" + line_of(job, "reading_grows"), "machine.z_dial.reading_grows",
+       "\"plus\", \"minus\""});
+  expect_input_error([&] { read_job(replace(job, "edge_finder_diameter = 0.2\n", ""), "m.toml"); },
+                     {"machine.datum.edge_finder_diameter", "missing"});
+  expect_input_error(
+      [&] { read_job(replace(job, "x = \"edge-finder\"", "x = \"touch-off\""), "m.toml"); },
+      {"m.toml" + line_of(job, "edge_finder_diameter"), "machine.datum.edge_finder_diameter",
+       "applies only to x = \"edge-finder\""});
+  expect_input_error([&] { read_job(replace(job, "shim = 0.002", "shim = 0.5"), "m.toml"); },
+                     {"m.toml" + line_of(job, "shim"), "machine.datum.shim", "at most 0.05 in"});
+  expect_input_error(
+      [&] { read_job(replace(job, "kind = \"manual\"", "kind = \"cnc\""), "m.toml"); },
+      {"machine.x_dial", "kind = \"manual\""});
+  expect_input_error(
+      [&] {
+        read_job(replace(job,
+                         "[machine.z_dial]\nunits = \"mm\"\ntravel_per_turn = 2.5\n"
+                         "divisions = 125\nreading_grows = \"minus\"\nbacklash = 0.05\n",
+                         ""),
+                 "m.toml");
+      },
+      {"machine.z_dial", "missing"});
+}
+
+TEST(job_reader, manual_datum_and_approach_must_agree) {
+  const std::string job = valid + manual_tail;
+  // Approaching X settings moving plus, the left face is the one met that way.
+  expect_input_error(
+      [&] { read_job(replace(job, "face = \"left\"", "face = \"right\""), "m.toml"); },
+      {"m.toml" + line_of(job, "face = "), "machine.datum.face", "on the left face"});
+  // The top face is touched off moving down.
+  expect_input_error(
+      [&] {
+        read_job(replace(job, "backlash = 0.05", "backlash = 0.05\napproach = \"plus\""), "m.toml");
+      },
+      {"machine.z_dial.approach", "\"minus\""});
+  // Approaching minus moves the default face to the right.
+  const Job right =
+      read_job(replace(replace(job, "backlash = 0.004", "backlash = 0.004\napproach = \"minus\""),
+                       "face = \"left\"\n", ""),
+               "m.toml");
+  EXPECT_EQ(right.machine.manual->datum.x_face, Side::Right);
+}
+
+TEST(job_reader, manual_without_a_datum_table_touches_off) {
+  const std::string job = valid + manual_tail.substr(0, manual_tail.find("[machine.datum]"));
+  const Job read = read_job(job, "m.toml");
+  ASSERT_TRUE(read.machine.manual.has_value());
+  EXPECT_EQ(read.machine.manual->datum.x_method, XDatumMethod::TouchOff);
+  EXPECT_DOUBLE_EQ(read.machine.manual->datum.shim, 0);
+}
+
 }  // namespace dovetailor

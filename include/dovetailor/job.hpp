@@ -5,6 +5,7 @@
 #include <vector>
 
 #include <dovetailor/error.hpp>
+#include <dovetailor/handwheel.hpp>
 #include <dovetailor/units.hpp>
 
 namespace dovetailor {
@@ -144,11 +145,45 @@ struct Gauge {
   bool operator==(const Gauge&) const = default;
 };
 
+// How the X zero of a manual machine is found. Either way the spindle axis
+// ends up beside a side face of the stock, off it by a known radius, and the
+// X dial is zeroed there.
+enum class XDatumMethod {
+  EdgeFinder,  // an edge finder of `edge_finder_diameter` touches the face
+  TouchOff,    // the first tool, running, just touches the face
+};
+
+// How the Z zero is found: each tool's tip is touched off on the stock's top
+// face over a feeler (paper or shim) of `shim` thickness and the Z dial is
+// zeroed there, so the tip stands at z = +shim at dial zero.
+struct Datum {
+  XDatumMethod x_method = XDatumMethod::EdgeFinder;
+  Side x_face = Side::Left;         // the stock side face the X zero is found on
+  double edge_finder_diameter = 0;  // mm, for XDatumMethod::EdgeFinder
+  double shim = 0;                  // mm, feeler under the tip at Z touch-off
+
+  bool operator==(const Datum&) const = default;
+};
+
+// A manual machine's feeds, with dials. Directions are the tool's motion
+// relative to the work, as the plan's coordinates are (the table or knee
+// itself moves the other way).
+struct ManualFeeds {
+  Handwheel x;  // the cross feed (X)
+  Handwheel z;  // the vertical feed (knee or quill, Z)
+  Datum datum;
+
+  bool operator==(const ManualFeeds&) const = default;
+};
+
 struct Machine {
   MachineKind kind = MachineKind::Cnc;
   // Limits the cutting data is capped at: spindle rev/min, feed in mm/min.
   std::optional<double> max_rpm;
   std::optional<double> max_feed;
+  // Dials and datum procedure; set for kind = manual when the file gives them
+  // (the pass sheet then prints dial settings).
+  std::optional<ManualFeeds> manual;
 
   bool operator==(const Machine&) const = default;
 };

@@ -23,6 +23,8 @@ int run_cli(int argc, const char* const* argv) {
   setup_plan(app);
   setup_gcode(app);
   setup_trim(app);
+  setup_sheet(app);
+  setup_draw(app);
   std::string names;
   bool known = false;
   for (const auto* sub : app.get_subcommands({})) {

@@ -12,5 +12,7 @@ void setup_fit(CLI::App& app);
 void setup_plan(CLI::App& app);
 void setup_gcode(CLI::App& app);
 void setup_trim(CLI::App& app);
+void setup_sheet(CLI::App& app);
+void setup_draw(CLI::App& app);
 
 }  // namespace dovetailor::cli

@@ -1,5 +1,6 @@
 #include "file_io.hpp"
 
+#include <cctype>
 #include <cerrno>
 #include <cstdio>
 #include <cstring>
@@ -28,6 +29,12 @@ std::string read_text_file(const std::string& path, std::size_t max_bytes) {
       throw InputError("is larger than " + std::to_string(max_bytes >> 20) + " MiB", {path});
   }
   return text;
+}
+
+std::string output_extension(const std::string& path) {
+  std::string ext = std::filesystem::path(path).extension().string();
+  for (auto& ch : ext) ch = static_cast<char>(std::tolower(static_cast<unsigned char>(ch)));
+  return ext;
 }
 
 AtomicFile::AtomicFile(std::string path, bool force) : path_(std::move(path)) {

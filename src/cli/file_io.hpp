@@ -34,6 +34,9 @@ class AtomicFile {
 };
 
 // AtomicFile for a whole text at once.
+
+// The output file's extension in lower case (".pdf"), which picks the format.
+std::string output_extension(const std::string& path);
 void write_file_atomically(const std::string& path, const std::string& content, bool force);
 
 }  // namespace dovetailor::cli

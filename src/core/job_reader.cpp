@@ -322,7 +322,114 @@ class JobReader {
             .value_or(MachineKind::Cnc);
     job_.machine.max_rpm = positive_number(t, "max_rpm", largest_rpm, "rev/min");
     job_.machine.max_feed = positive_feed(t, "max_feed");
+    const auto* x_dial = t.table("x_dial");
+    const auto* z_dial = t.table("z_dial");
+    const auto* datum = t.table("datum");
+    if (x_dial || z_dial || datum) {
+      const std::string_view given = x_dial ? "x_dial" : z_dial ? "z_dial" : "datum";
+      if (job_.machine.kind != MachineKind::Manual)
+        t.fail(given, "dials and the datum procedure belong to kind = \"manual\"");
+      if (!x_dial) t.fail("x_dial", "missing; a manual machine with dials needs [machine.x_dial]");
+      if (!z_dial) t.fail("z_dial", "missing; a manual machine with dials needs [machine.z_dial]");
+      ManualFeeds feeds;
+      feeds.x = read_dial(*x_dial, "machine.x_dial", std::nullopt);
+      feeds.z = read_dial(*z_dial, "machine.z_dial", AxisDirection::Minus);
+      if (feeds.z.approach != AxisDirection::Minus) {
+        TableReader z(*z_dial, "machine.z_dial", file_);
+        z.fail("approach",
+               "the top face is touched off moving down, so Z settings are reached moving "
+               "\"minus\" as well; give approach = \"minus\"");
+      }
+      // The face met moving in the X approach direction: left moving plus.
+      const Side face = feeds.x.approach == AxisDirection::Plus ? Side::Left : Side::Right;
+      if (datum) {
+        feeds.datum = read_datum(*datum, face);
+      } else {
+        feeds.datum.x_method = XDatumMethod::TouchOff;
+        feeds.datum.x_face = face;
+      }
+      job_.machine.manual = feeds;
+    }
     t.reject_unknown();
+  }
+
+  // One handwheel: a preset, or travel per turn and divisions, in the dial's
+  // own units (default the job's), so an inch job can be cut on metric dials.
+  Handwheel read_dial(const toml::table& table, const std::string& path,
+                      std::optional<AxisDirection> default_approach) {
+    TableReader t(table, path, file_);
+    const Units dial_units =
+        t.choice<Units>("units", {{"inch", Units::Inch}, {"mm", Units::Millimetre}})
+            .value_or(job_.units);
+    Handwheel wheel;
+    const auto preset = t.choice<CommonDial>("preset", {{"inch-200", CommonDial::Inch200},
+                                                        {"inch-100", CommonDial::Inch100},
+                                                        {"metric-5", CommonDial::Metric5mm},
+                                                        {"metric-2", CommonDial::Metric2mm}});
+    if (preset) {
+      for (std::string_view key : {"travel_per_turn", "divisions", "units"})
+        if (t.has(key)) t.fail(key, "leave this out when a preset gives the dial");
+      wheel = common_dial(*preset);
+      t.allow("travel_per_turn");
+      t.allow("divisions");
+    } else {
+      const double largest = dial_units == Units::Inch ? 2.0 : 50.0;
+      auto travel = t.number("travel_per_turn", 0, largest);
+      if (!travel || *travel <= 0)
+        t.fail(
+            "travel_per_turn",
+            fmt::format("{}; give the axis travel for one turn of the wheel in {}, or a "
+                        "preset (\"inch-200\", \"inch-100\", \"metric-5\", \"metric-2\")",
+                        travel ? "must be greater than zero" : "missing", unit_name(dial_units)));
+      auto divisions = t.integer("divisions", 10, 2000);
+      if (!divisions)
+        t.fail("divisions", "missing; give the graduations round the dial, 10 to 2000");
+      wheel.travel_per_turn = to_mm(*travel, dial_units);
+      wheel.divisions = static_cast<int>(*divisions);
+    }
+    const auto direction = [&](std::string_view key) {
+      return t.choice<AxisDirection>(
+          key, {{"plus", AxisDirection::Plus}, {"minus", AxisDirection::Minus}});
+    };
+    wheel.reading_grows = direction("reading_grows").value_or(AxisDirection::Plus);
+    wheel.approach = direction("approach").value_or(default_approach.value_or(wheel.reading_grows));
+    const double backlash =
+        t.number("backlash", 0, dial_units == Units::Inch ? 0.1 : 2.5).value_or(0);
+    wheel.backlash = to_mm(backlash, dial_units);
+    t.reject_unknown();
+    return wheel;
+  }
+
+  // The X zero must be found moving the way every X setting is approached,
+  // so the dial zero has the backlash taken up on the same side: `face`.
+  Datum read_datum(const toml::table& table, Side face) {
+    TableReader t(table, "machine.datum", file_);
+    Datum d;
+    d.x_method = t.choice<XDatumMethod>("x", {{"edge-finder", XDatumMethod::EdgeFinder},
+                                              {"touch-off", XDatumMethod::TouchOff}})
+                     .value_or(XDatumMethod::EdgeFinder);
+    d.x_face =
+        t.choice<Side>("face", {{"left", Side::Left}, {"right", Side::Right}}).value_or(face);
+    if (d.x_face != face)
+      t.fail("face", fmt::format("the X settings are approached moving {}, so X zero must be "
+                                 "found moving that way too: on the {} face",
+                                 face == Side::Left ? "plus" : "minus",
+                                 face == Side::Left ? "left" : "right"));
+    if (d.x_method == XDatumMethod::EdgeFinder) {
+      if (!t.has("edge_finder_diameter"))
+        t.fail("edge_finder_diameter",
+               fmt::format("missing; give the edge finder's tip diameter in {} (with x = "
+                           "\"edge-finder\", the default)",
+                           unit_name(job_.units)));
+      d.edge_finder_diameter = positive_length(t, "edge_finder_diameter");
+    } else if (t.has("edge_finder_diameter")) {
+      t.fail("edge_finder_diameter", "applies only to x = \"edge-finder\"");
+    }
+    d.shim = length(t, "shim", 0, false, 0);
+    if (d.shim > to_mm(0.05, Units::Inch))
+      t.fail("shim", "a feeler for touching off is thin: at most 0.05 in (1.27 mm)");
+    t.reject_unknown();
+    return d;
   }
 
   void read_strategy(TableReader& top) {

@@ -1,0 +1,20 @@
+#pragma once
+
+#include <string>
+
+#include <dovetailor/sheet.hpp>
+
+namespace dovetailor {
+
+// The pass sheet as plain text, every line at most 80 columns (ASCII only, so
+// it prints on any printer and reads in any terminal): the title block, the
+// cautions, the set-up steps, one table per operation with the checkpoints
+// boxed in after their pass, then the legend and notes. A cell too wide for
+// its column is wrapped inside the column, never cut off.
+std::string sheet_text(const Sheet& sheet);
+
+// Lines of at most `width` columns holding the words of `text` (a word longer
+// than the width stands alone on its line).
+std::vector<std::string> wrap_words(const std::string& text, std::size_t width);
+
+}  // namespace dovetailor

@@ -1,0 +1,56 @@
+// dovetailor draw: the cross-section to scale, as SVG, PNG or PDF.
+
+#include <filesystem>
+
+#include <dovetailor/cairo_render.hpp>
+#include <dovetailor/drawing.hpp>
+#include <dovetailor/drawing_scene.hpp>
+#include <dovetailor/error.hpp>
+#include <dovetailor/job_reader.hpp>
+#include <dovetailor/planner.hpp>
+
+#include "commands.hpp"
+#include "file_io.hpp"
+
+namespace dovetailor::cli {
+namespace {
+
+struct DrawOptions {
+  std::string job_file;
+  std::string output;
+  int width = 1600;  // PNG pixels
+  int height = 1000;
+  bool force = false;
+};
+
+void run_draw(const DrawOptions& o) {
+  const std::string ext = output_extension(o.output);
+  if (ext != ".svg" && ext != ".png" && ext != ".pdf")
+    throw InputError("give an output file ending in .svg, .png or .pdf", {o.output}, "-o");
+  const Job job = read_job(read_text_file(o.job_file), o.job_file);
+  const Drawing drawing = build_drawing(plan(job));
+  // The page: 270 mm wide (fits landscape A4 and Letter); a PNG keeps its pixels' aspect.
+  const double width = 270;
+  const double height = ext == ".png" ? width * o.height / o.width : 170;
+  const Scene scene = layout_drawing(drawing, width, height);
+  const std::string bytes = ext == ".svg"   ? drawing_svg(scene)
+                            : ext == ".png" ? drawing_png(scene, o.width, o.height)
+                                            : drawing_pdf(scene);
+  write_file_atomically(o.output, bytes, o.force);
+}
+
+}  // namespace
+
+void setup_draw(CLI::App& app) {
+  auto o = std::make_shared<DrawOptions>();
+  auto* cmd = app.add_subcommand(
+      "draw", "The cross-section to scale: stock, part, each operation's cut, tools, pins.");
+  cmd->add_option("job", o->job_file, "Job file (TOML)")->required();
+  cmd->add_option("-o,--output", o->output, "Output file: .svg, .png or .pdf")->required();
+  cmd->add_option("--width", o->width, "PNG width in pixels")->check(CLI::Range(200, 8000));
+  cmd->add_option("--height", o->height, "PNG height in pixels")->check(CLI::Range(150, 8000));
+  cmd->add_flag("--force", o->force, "Replace an existing output file");
+  cmd->callback([o] { run_draw(*o); });
+}
+
+}  // namespace dovetailor::cli

@@ -1,0 +1,69 @@
+// dovetailor sheet: the printed pass sheet for the machine, as text or PDF.
+
+#include <chrono>
+#include <filesystem>
+
+#include <fmt/format.h>
+
+#include <dovetailor/cairo_render.hpp>
+#include <dovetailor/drawing.hpp>
+#include <dovetailor/error.hpp>
+#include <dovetailor/job_reader.hpp>
+#include <dovetailor/planner.hpp>
+#include <dovetailor/sheet.hpp>
+#include <dovetailor/sheet_text.hpp>
+
+#include "commands.hpp"
+#include "file_io.hpp"
+
+namespace dovetailor::cli {
+namespace {
+
+struct SheetCommandOptions {
+  std::string job_file;
+  std::string output;
+  std::string date;
+  std::string paper = "letter";
+  bool force = false;
+};
+
+std::string today() {
+  const auto now = std::chrono::floor<std::chrono::days>(std::chrono::system_clock::now());
+  const std::chrono::year_month_day day{now};
+  return fmt::format("{:04}-{:02}-{:02}", static_cast<int>(day.year()),
+                     static_cast<unsigned>(day.month()), static_cast<unsigned>(day.day()));
+}
+
+void run_sheet(const SheetCommandOptions& o) {
+  const std::string ext = output_extension(o.output);
+  if (ext != ".txt" && ext != ".pdf")
+    throw InputError("give an output file ending in .txt (plain text) or .pdf", {o.output}, "-o");
+  const Job job = read_job(read_text_file(o.job_file), o.job_file);
+  const Plan p = plan(job);
+  const Sheet sheet = build_sheet(p, {.date = o.date.empty() ? today() : o.date});
+  if (ext == ".txt") {
+    write_file_atomically(o.output, sheet_text(sheet), o.force);
+    return;
+  }
+  const Drawing drawing = build_drawing(p);
+  write_file_atomically(
+      o.output, sheet_pdf(sheet, &drawing, o.paper == "a4" ? Paper::A4 : Paper::Letter), o.force);
+}
+
+}  // namespace
+
+void setup_sheet(CLI::App& app) {
+  auto o = std::make_shared<SheetCommandOptions>();
+  auto* cmd = app.add_subcommand(
+      "sheet", "The pass sheet for the machine: settings, dials, checkpoints (.txt or .pdf).");
+  cmd->add_option("job", o->job_file, "Job file (TOML)")->required();
+  cmd->add_option("-o,--output", o->output, "Output file; the extension picks the format")
+      ->required();
+  cmd->add_option("--date", o->date, "Date printed in the title block (default: today)");
+  cmd->add_option("--paper", o->paper, "Paper for a PDF: letter (default) or a4")
+      ->check(CLI::IsMember({"letter", "a4"}));
+  cmd->add_flag("--force", o->force, "Replace an existing output file");
+  cmd->callback([o] { run_sheet(*o); });
+}
+
+}  // namespace dovetailor::cli

@@ -1,0 +1,202 @@
+#include <algorithm>
+#include <cmath>
+
+#include <clipper.hpp>
+#include <fmt/format.h>
+
+#include <dovetailor/drawing.hpp>
+#include <dovetailor/pin_gauge.hpp>
+
+namespace dovetailor {
+namespace {
+
+namespace cl = ClipperLib;
+
+// Section booleans on integers: 10 000 units per mm (0.1 um), exact and robust.
+constexpr double clip_scale = 1e4;
+
+cl::Path to_path(const std::vector<Point2>& ring) {
+  cl::Path path;
+  for (const auto& p : ring)
+    path.emplace_back(static_cast<cl::cInt>(std::llround(p.x * clip_scale)),
+                      static_cast<cl::cInt>(std::llround(p.z * clip_scale)));
+  return path;
+}
+
+std::vector<std::vector<Point2>> to_rings(const cl::Paths& paths) {
+  std::vector<std::vector<Point2>> rings;
+  for (const auto& path : paths) {
+    std::vector<Point2> ring;
+    for (const auto& p : path)
+      ring.push_back(
+          {static_cast<double>(p.X) / clip_scale, static_cast<double>(p.Y) / clip_scale});
+    if (ring.size() >= 3) rings.push_back(ring);
+  }
+  return rings;
+}
+
+cl::Paths boolean(cl::ClipType type, const cl::Paths& a, const cl::Paths& b) {
+  cl::Clipper clipper;
+  clipper.AddPaths(a, cl::ptSubject, true);
+  clipper.AddPaths(b, cl::ptClip, true);
+  cl::Paths out;
+  clipper.Execute(type, out, cl::pftNonZero, cl::pftNonZero);
+  return out;
+}
+
+std::string show(double mm, Units u) {
+  std::string s = fmt::format("{:.{}f}", from_mm(mm, u), length_decimals(u));
+  if (s.starts_with("-") && s.find_first_not_of("-0.") == std::string::npos) s.erase(0, 1);
+  return s + " " + std::string(unit_symbol(u));
+}
+
+// The direction (degrees from +X) from a flank's base corner along the base
+// plane into the void: toward the middle on a female, away from it on a male.
+double floor_direction(const DovetailSection& s, Side side) {
+  const bool toward_plus_x = (side == Side::Left) == (s.type == DovetailType::Female);
+  return toward_plus_x ? 0.0 : 180.0;
+}
+
+}  // namespace
+
+double ring_area(const std::vector<Point2>& ring) {
+  double twice = 0;
+  for (std::size_t i = 0; i < ring.size(); ++i) {
+    const auto& p = ring[i];
+    const auto& q = ring[(i + 1) % ring.size()];
+    twice += p.x * q.z - q.x * p.z;
+  }
+  return twice / 2;
+}
+
+std::vector<Point2> tool_silhouette(const Tool& tool, double x, double z, double top) {
+  const double r = tool.diameter / 2;
+  if (tool.kind == ToolKind::EndMill) return {{x - r, z}, {x + r, z}, {x + r, top}, {x - r, top}};
+  const double small = r - tool.flute_length * cot_deg(tool.angle);
+  const double neck = tool.neck_diameter / 2;
+  const double cone_top = z + tool.flute_length;
+  std::vector<Point2> ring = {{x - r, z}, {x + r, z}, {x + small, cone_top}};
+  if (top > cone_top) {
+    ring.push_back({x + neck, cone_top});
+    ring.push_back({x + neck, top});
+    ring.push_back({x - neck, top});
+    ring.push_back({x - neck, cone_top});
+  }
+  ring.push_back({x - small, cone_top});
+  return ring;
+}
+
+Drawing build_drawing(const Plan& plan) {
+  const Job& job = plan.job;
+  const Units u = job.units;
+  const auto& t = plan.target;
+  Drawing d;
+  d.title = job.part.name.empty() ? job.source : job.part.name;
+  d.subtitle = fmt::format("Section across the slide, looking from the front end; {}",
+                           u == Units::Inch ? "dimensions in inches" : "dimensions in mm");
+  const double left = stock_left_x(job), right = stock_right_x(job), height = job.stock.height;
+  d.stock_min = {left, -height};
+  d.stock_max = {right, 0};
+  const std::vector<Point2> stock_ring = {{left, -height}, {right, -height}, {right, 0}, {left, 0}};
+  const cl::Paths stock{to_path(stock_ring)};
+
+  // What each operation removes: the sweep of its passes, inside the stock,
+  // less what the operations before it removed.
+  const double above = 0.5 * t.depth;  // tools drawn up past the top face
+  cl::Paths removed_before;
+  int index = 0;
+  for (const auto& op : plan.operations) {
+    const Tool* tool = find_tool(job, op.tool);
+    if (!tool) continue;
+    cl::Paths sweep;
+    for (const auto& p : op.passes)
+      sweep.push_back(to_path(tool_silhouette(*tool, p.x, p.z, above)));
+    sweep = boolean(cl::ctUnion, sweep, {});
+    const cl::Paths inside = boolean(cl::ctIntersection, sweep, stock);
+    const cl::Paths fresh = boolean(cl::ctDifference, inside, removed_before);
+    removed_before = boolean(cl::ctUnion, removed_before, inside);
+    d.regions.push_back(
+        {RegionFill::Removed, index++, to_rings(fresh),
+         fmt::format("Removed by operation {}: {} (T{})", index, op.title, op.tool)});
+  }
+  d.regions.push_back(
+      {RegionFill::Part, 0, {part_outline(t, left, right, height)}, "Finished part"});
+  d.outlines.push_back({OutlineStyle::Stock, stock_ring, "Stock as supplied", ""});
+
+  // The dovetail cutter at its first pass and its finishing pass.
+  const Pass* first = nullptr;
+  const Pass* finish = nullptr;
+  for (const Pass* p : all_passes(plan)) {
+    const Tool* tool = find_tool(job, p->tool);
+    if (!tool || tool->kind != ToolKind::Dovetail) continue;
+    if (!first) first = p;
+    if (!finish && p->role == PassRole::Finish) finish = p;
+  }
+  const double tool_top = above + 0.25 * t.depth;
+  for (const Pass* p : {first, finish}) {
+    if (!p) continue;
+    const Tool* tool = find_tool(job, p->tool);
+    const bool final_pass = p == finish;
+    d.outlines.push_back({final_pass ? OutlineStyle::ToolFinal : OutlineStyle::ToolFirst,
+                          tool_silhouette(*tool, p->x, p->z, tool_top),
+                          fmt::format("T{} at pass {} ({})", p->tool, p->number,
+                                      final_pass ? "finishing" : "first cut"),
+                          fmt::format("T{} p{}", p->tool, p->number)});
+  }
+
+  // The pins of the last checkpoint, in the finished section.
+  if (job.gauge) {
+    const double pin = job.gauge->pin_diameter;
+    const auto& r = plan.final_reading;
+    std::vector<PinPlacement> placed;
+    for (Side side : {Side::Left, Side::Right})
+      if (t.flank(side).angled) placed.push_back(place_pin(t, side, pin));
+    for (const auto& p : placed) d.pins.push_back({p.center, pin});
+    d.pin_label = fmt::format("Pin{} {} dia, reading {} {}", placed.size() > 1 ? "s" : "",
+                              show(pin, u), show(r.value, u),
+                              r.method == ReadingMethod::OverPins      ? "over the pins"
+                              : r.method == ReadingMethod::BetweenPins ? "between the pins"
+                                                                       : "square side to pin");
+    double from = 0, to = 0;
+    if (placed.size() == 2) {
+      from = placed[0].measuring_edge_x;
+      to = placed[1].measuring_edge_x;
+    } else if (placed.size() == 1) {
+      const Flank& square = t.left.angled ? t.right : t.left;
+      from = square.base.x;
+      to = placed[0].measuring_edge_x;
+    }
+    if (from > to) std::swap(from, to);
+    const double z = placed.empty() ? 0 : placed[0].center.z;
+    d.dimensions.push_back(
+        {DimensionKind::Horizontal, {from, z}, {to, z}, 0, 0, 0, r.value, show(r.value, u)});
+  }
+
+  // Widths, depth and angle.
+  const double base_z = -t.depth;
+  d.dimensions.push_back({DimensionKind::Horizontal, t.left.base, t.right.base,
+                          -(height - t.depth) - 0.12 * height, 0, 0, t.width_bottom(),
+                          show(t.width_bottom(), u)});
+  d.dimensions.push_back({DimensionKind::Horizontal, t.left.top, t.right.top,
+                          tool_top + 0.1 * height, 0, 0, t.width_top(), show(t.width_top(), u)});
+  d.dimensions.push_back({DimensionKind::Vertical,
+                          {right, 0},
+                          {right, base_z},
+                          0.12 * height,
+                          0,
+                          0,
+                          t.depth,
+                          show(t.depth, u)});
+  const Side angled = t.left.angled ? Side::Left : Side::Right;
+  const Flank& f = t.flank(angled);
+  const double floor_deg = floor_direction(t, angled);
+  const double flank_deg = degrees(std::atan2(f.top.z - f.base.z, f.top.x - f.base.x));
+  // The arc clears the pin (it reaches 1.5 D from the corner at 60 deg).
+  const double arc = std::max(0.6 * t.depth, job.gauge ? 1.7 * job.gauge->pin_diameter : 0.0);
+  d.dimensions.push_back({DimensionKind::Angle, f.base, f.top, arc,
+                          std::min(floor_deg, flank_deg), std::max(floor_deg, flank_deg), t.angle,
+                          fmt::format("{:g}\u00b0", t.angle)});
+  return d;
+}
+
+}  // namespace dovetailor

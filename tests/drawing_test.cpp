@@ -1,0 +1,125 @@
+#include <cmath>
+#include <cstdio>
+#include <cstdlib>
+#include <fstream>
+#include <sstream>
+
+#include <gtest/gtest.h>
+
+#include <dovetailor/cairo_render.hpp>
+#include <dovetailor/drawing.hpp>
+#include <dovetailor/drawing_scene.hpp>
+#include <dovetailor/job_reader.hpp>
+#include <dovetailor/planner.hpp>
+#include <dovetailor/sheet.hpp>
+
+#include "test_support.hpp"
+
+namespace dovetailor {
+namespace {
+
+using testing::read_source_file;
+
+Plan plan_of(const std::string& sample) { return plan(read_job(read_source_file(sample), sample)); }
+
+std::string inches(double mm) {
+  char text[32];
+  std::snprintf(text, sizeof text, "%.4f in", mm / 25.4);
+  return text;
+}
+
+double area(const Region& r) {
+  double a = 0;
+  for (const auto& ring : r.polygons) a += ring_area(ring);
+  return a;
+}
+
+// Invariant: the operations remove the stock less the finished part, no more
+// and no less (within the slivers the cutter's straight cone leaves at a
+// 0.1 um clipping grid), and nothing twice.
+TEST(drawing, removed_regions_and_part_fill_the_stock) {
+  for (const char* sample : {"samples/height-stop-half-female.toml",
+                             "samples/fixture-slide-female.toml", "samples/stop-block-male.toml"}) {
+    const Plan p = plan_of(sample);
+    const Drawing d = build_drawing(p);
+    const double stock = p.job.stock.width * p.job.stock.height;
+    double total = 0;
+    for (const auto& r : d.regions) {
+      EXPECT_GE(area(r), 0) << sample << " " << r.label;
+      total += area(r);
+    }
+    EXPECT_NEAR(total, stock, 1e-3 * stock) << sample;
+  }
+}
+
+// The pin dimension spans the plan's final reading, and every dimension text
+// is the plan's number in the job's units (the text sheet prints the same).
+TEST(drawing, dimension_texts_are_the_plan_numbers) {
+  const Plan p = plan_of("samples/height-stop-half-female.toml");
+  const Drawing d = build_drawing(p);
+  ASSERT_FALSE(d.dimensions.empty());
+  const Dimension& pins = d.dimensions.front();
+  EXPECT_NEAR(std::abs(pins.b.x - pins.a.x), p.final_reading.value, 1e-9);
+  EXPECT_EQ(pins.text, inches(p.final_reading.value));
+  const std::string svg = drawing_svg(layout_drawing(d, 270, 170));
+  for (const std::string& text :
+       {inches(p.final_reading.value), inches(p.target.width_bottom()),
+        inches(p.target.width_top()), inches(p.target.depth), std::string("60\u00b0")})
+    EXPECT_NE(svg.find(">" + text + "<"), std::string::npos) << text;
+  // 0.6189, 0.8750, 0.7307, 0.2500 in: the plan command's own figures.
+  EXPECT_NE(svg.find(">0.6189 in<"), std::string::npos);
+  EXPECT_NE(svg.find(">0.7307 in<"), std::string::npos);
+}
+
+// PNG signature and IHDR (ISO/IEC 15948, the PNG specification): bytes 16-23
+// hold the width and height, big-endian.
+TEST(drawing, png_has_the_requested_size) {
+  const Scene scene = layout_drawing(build_drawing(plan_of("samples/stop-block-male.toml")), 270,
+                                     270.0 * 300 / 640);
+  const std::string png = drawing_png(scene, 640, 300);
+  ASSERT_GT(png.size(), 24u);
+  EXPECT_EQ(png.substr(0, 8), std::string("\x89PNG\r\n\x1a\n", 8));
+  const auto be32 = [&](std::size_t at) {
+    unsigned v = 0;
+    for (std::size_t i = 0; i < 4; ++i) v = v << 8 | static_cast<unsigned char>(png[at + i]);
+    return v;
+  };
+  EXPECT_EQ(be32(16), 640u);
+  EXPECT_EQ(be32(20), 300u);
+}
+
+// The PDF sheet's text, extracted by pdftotext (Debian poppler-utils), holds
+// every pass setting and checkpoint reading of the plan.
+TEST(drawing, pdf_sheet_text_holds_every_setting) {
+  const Plan p = plan_of("samples/height-stop-half-female.toml");
+  const Sheet sheet = build_sheet(p, {.date = "2024-05-01"});
+  const Drawing d = build_drawing(p);
+  const std::string pdf = sheet_pdf(sheet, &d, Paper::A4);
+  ASSERT_EQ(pdf.substr(0, 5), "%PDF-");
+  const std::string base = ::testing::TempDir() + "dovetailor_sheet_test";
+  std::ofstream(base + ".pdf", std::ios::binary) << pdf;
+  const std::string command = "pdftotext -layout " + base + ".pdf " + base + ".txt";
+  ASSERT_EQ(std::system(command.c_str()), 0) << "pdftotext (poppler-utils) is needed";
+  std::ifstream in(base + ".txt");
+  std::stringstream text;
+  text << in.rdbuf();
+  const std::string t = text.str();
+  const auto number = [](double mm) { return inches(mm).substr(0, inches(mm).size() - 3); };
+  for (const Pass* pass : all_passes(p)) {
+    EXPECT_NE(t.find(number(pass->x)), std::string::npos) << "pass " << pass->number;
+    EXPECT_NE(t.find(number(pass->z)), std::string::npos) << "pass " << pass->number;
+  }
+  for (const auto& op : sheet.operations)
+    for (const auto& row : op.rows)
+      for (const auto& cell : row.cells)
+        if (cell != "[ ]") {
+          EXPECT_NE(t.find(cell), std::string::npos) << cell;
+        }
+  for (const auto& c : p.checkpoints)
+    EXPECT_NE(t.find("expect " + inches(c.expected.value)), std::string::npos) << c.name;
+  std::remove((base + ".pdf").c_str());
+  std::remove((base + ".txt").c_str());
+}
+
+}  // namespace
+}  // namespace dovetailor
