@@ -10,5 +10,12 @@ namespace dovetailor::cli {
 void setup_pins(CLI::App& app);
 void setup_fit(CLI::App& app);
 void setup_plan(CLI::App& app);
+void setup_check(CLI::App& app);
+
+// Thrown by a command that has written its output and must end the program
+// with this exit code (check: 1 when it found errors); caught in main.
+struct ExitCode {
+  int code = 0;
+};
 
 }  // namespace dovetailor::cli

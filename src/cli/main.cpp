@@ -18,6 +18,7 @@ int main(int argc, char** argv) {
   dovetailor::cli::setup_pins(app);
   dovetailor::cli::setup_fit(app);
   dovetailor::cli::setup_plan(app);
+  dovetailor::cli::setup_check(app);
   try {
     app.parse(argc, argv);
   } catch (const CLI::Success& e) {
@@ -25,6 +26,8 @@ int main(int argc, char** argv) {
   } catch (const CLI::ParseError& e) {
     app.exit(e);
     return 2;
+  } catch (const dovetailor::cli::ExitCode& e) {
+    return e.code;
   } catch (const dovetailor::InputError& e) {
     fmt::print(stderr, "dovetailor: {}\n", e.what());
     return 2;
