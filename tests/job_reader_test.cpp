@@ -329,3 +329,51 @@ TEST(job_reader, manual_without_a_datum_table_touches_off) {
 }
 
 }  // namespace dovetailor
+
+namespace dovetailor {
+namespace {
+
+// Stock 3.0 x 6.0 x 1.25 in, centred on x = 0: x from -1.5 to 1.5, y 0 to 6,
+// z -1.25 to 0 (README, "Conventions").
+TEST(job_reader, reads_fixture_boxes_in_work_coordinates) {
+  const Job job = read_job(valid + R"(
+[[fixture]]
+name = "right jaw"
+kind = "vise-jaw"
+x = [1.5, 2.0]
+y = [0, 6]
+z = [-1.25, 0.25]
+)",
+                           "job.toml");
+  ASSERT_EQ(job.fixtures.size(), 1u);
+  const Fixture& f = job.fixtures.front();
+  EXPECT_EQ(f.name, "right jaw");
+  EXPECT_EQ(f.kind, FixtureKind::ViseJaw);
+  EXPECT_DOUBLE_EQ(f.x_min, 38.1);  // 1.5 in = 38.1 mm exactly (1959 inch)
+  EXPECT_DOUBLE_EQ(f.z_max, 6.35);
+}
+
+TEST(job_reader, refuses_a_fixture_inside_the_stock) {
+  expect_input_error(
+      [] {
+        read_job(valid + "[[fixture]]\nx = [1.0, 2.0]\ny = [0, 6]\nz = [-1, 0.25]\n", "job.toml");
+      },
+      {"job.toml", "fixture[1].x", "reaches into the stock"});
+}
+
+TEST(job_reader, refuses_a_fixture_with_a_reversed_span_or_unknown_key) {
+  expect_input_error(
+      [] {
+        read_job(valid + "[[fixture]]\nx = [2.0, 1.6]\ny = [0, 6]\nz = [-1, 0.25]\n", "job.toml");
+      },
+      {"fixture[1].x", "from below to"});
+  expect_input_error(
+      [] {
+        read_job(valid + "[[fixture]]\nx = [1.6, 2]\ny = [0, 6]\nz = [-1, 0]\nheight = 3\n",
+                 "job.toml");
+      },
+      {"fixture[1]", "height"});
+}
+
+}  // namespace
+}  // namespace dovetailor

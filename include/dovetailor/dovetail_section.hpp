@@ -7,7 +7,6 @@
 
 namespace dovetailor {
 
-
 // One flank as cut, from its corner on the base plane to its edge on the top
 // plane. A square flank has base.x == top.x.
 struct Flank {
@@ -56,6 +55,16 @@ double width_bottom_from_top(DovetailType type, double width_top, double depth, 
 
 // The section of a job's dovetail. Does not validate; the job reader does.
 DovetailSection section_of(const DovetailSpec& spec);
+
+// How fast a flank moves sideways along the slide, dx/dy: non-zero only for
+// the flank of a tapered gib. The gib thickens by 1/N per unit length toward
+// the back end (+Y), so its flank moves out (female) or in (male) by
+// 1 / (N sin a) per unit length (geometry of the flank).
+double flank_taper_slope(const DovetailSpec& spec, Side side);
+
+// The section at distance y along the slide: section_of(spec) with a tapered
+// gib's flank moved by flank_taper_slope * y.
+DovetailSection section_at(const DovetailSpec& spec, double y);
 
 // The design width at the base plane, before the gib allowance: the width the
 // mating part sees.

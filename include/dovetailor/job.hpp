@@ -188,6 +188,22 @@ struct Machine {
   bool operator==(const Machine&) const = default;
 };
 
+// Something that holds the work and that no part of the tool may touch: a
+// vise jaw, a clamp, a stop. A box in work coordinates (mm), from the job's
+// [[fixture]] tables; the checker tests every move of the whole tool body
+// against it. Boxes may touch the stock but not reach into it.
+enum class FixtureKind { ViseJaw, Clamp, Other };
+
+struct Fixture {
+  std::string name;  // for messages; "fixture 2" when the file gives none
+  FixtureKind kind = FixtureKind::Other;
+  double x_min = 0, x_max = 0;
+  double y_min = 0, y_max = 0;
+  double z_min = 0, z_max = 0;
+
+  bool operator==(const Fixture&) const = default;
+};
+
 struct Job {
   std::string source;  // file name the job was read from, for messages
   Units units = Units::Inch;
@@ -198,6 +214,7 @@ struct Job {
   std::optional<Gauge> gauge;
   Machine machine;
   Strategy strategy;
+  std::vector<Fixture> fixtures;
 
   bool operator==(const Job&) const = default;
 };

@@ -25,6 +25,7 @@ int run_cli(int argc, const char* const* argv) {
   setup_trim(app);
   setup_sheet(app);
   setup_draw(app);
+  setup_check(app);
   std::string names;
   bool known = false;
   for (const auto* sub : app.get_subcommands({})) {
@@ -43,6 +44,8 @@ int run_cli(int argc, const char* const* argv) {
   } catch (const CLI::ParseError& e) {
     app.exit(e);
     return 2;
+  } catch (const ExitCode& e) {
+    return e.code;
   } catch (const InputError& e) {
     fmt::print(stderr, "dovetailor: {}\n", e.what());
     return 2;

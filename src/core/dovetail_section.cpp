@@ -87,6 +87,25 @@ std::vector<Point2> part_outline(const DovetailSection& s, double stock_left, do
           {stock_left, floor}};
 }
 
+double flank_taper_slope(const DovetailSpec& spec, Side side) {
+  const auto& gib = spec.gib;
+  if (!gib || gib->side != side || gib->taper <= 0) return 0;
+  const double lateral = 1.0 / (gib->taper * std::sin(radians(spec.angle)));
+  const double outward = side == Side::Right ? lateral : -lateral;
+  return spec.type == DovetailType::Female ? outward : -outward;
+}
+
+DovetailSection section_at(const DovetailSpec& spec, double y) {
+  DovetailSection s = section_of(spec);
+  for (Side side : {Side::Left, Side::Right}) {
+    const double shift = flank_taper_slope(spec, side) * y;
+    Flank& f = side == Side::Left ? s.left : s.right;
+    f.base.x += shift;
+    f.top.x += shift;
+  }
+  return s;
+}
+
 double stock_left_x(const Job& job) { return -job.dovetail.center - job.stock.width / 2; }
 double stock_right_x(const Job& job) { return -job.dovetail.center + job.stock.width / 2; }
 

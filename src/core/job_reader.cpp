@@ -40,6 +40,7 @@ class JobReader {
     read_gauge(top);
     read_machine(top);
     read_strategy(top);
+    read_fixtures(top);
     top.reject_unknown();
     check_combinations();
     return job_;
@@ -482,6 +483,46 @@ class JobReader {
       st.dovetail_cutter = static_cast<int>(*n);
     }
     t.reject_unknown();
+  }
+
+  void read_fixtures(TableReader& top) {
+    int index = 0;
+    for (const auto* table : top.tables("fixture")) {
+      ++index;
+      TableReader t(*table, fmt::format("fixture[{}]", index), file_);
+      Fixture f;
+      f.name = t.text("name").value_or(fmt::format("fixture {}", index));
+      f.kind = t.choice<FixtureKind>("kind", {{"vise-jaw", FixtureKind::ViseJaw},
+                                              {"clamp", FixtureKind::Clamp},
+                                              {"other", FixtureKind::Other}})
+                   .value_or(FixtureKind::Other);
+      const double big = largest_length(job_.units);
+      const auto span = [&](std::string_view key, double& low, double& high) {
+        auto v = t.numbers(key, 2, -big, big);
+        if (!v)
+          t.fail(key, fmt::format("missing; give {} = [from, to] in work coordinates ({})", key,
+                                  unit_name(job_.units)));
+        if ((*v)[0] >= (*v)[1]) t.fail(key, "give [from, to] with from below to");
+        low = to_mm((*v)[0], job_.units);
+        high = to_mm((*v)[1], job_.units);
+      };
+      span("x", f.x_min, f.x_max);
+      span("y", f.y_min, f.y_max);
+      span("z", f.z_min, f.z_max);
+      t.reject_unknown();
+      // The stock spans the stock faces in x, 0..length in y, -height..0 in z.
+      const double eps = 1e-9;
+      const bool inside = f.x_max > stock_left_x(job_) + eps &&
+                          f.x_min < stock_right_x(job_) - eps && f.y_max > eps &&
+                          f.y_min < job_.stock.length - eps && f.z_max > -job_.stock.height + eps &&
+                          f.z_min < -eps;
+      if (inside)
+        t.fail("x",
+               "the box reaches into the stock; a fixture may touch the stock's faces but not "
+               "overlap it (work zero is the top face, on the dovetail centre line, at the front "
+               "end)");
+      job_.fixtures.push_back(f);
+    }
   }
 
   void check_combinations() {

@@ -11,13 +11,7 @@
 namespace dovetailor::detail {
 
 double flank_taper_slope(const PlanContext& ctx, Side side) {
-  const auto& gib = ctx.job.dovetail.gib;
-  if (!gib || gib->side != side || gib->taper <= 0) return 0;
-  // The gib thickens by 1/N per unit length toward the back end (+Y); its
-  // flank moves out (female) or in (male) by that over sin(angle).
-  const double lateral = 1.0 / (gib->taper * std::sin(radians(ctx.target.angle)));
-  const double outward = side == Side::Right ? lateral : -lateral;
-  return ctx.female() ? outward : -outward;
+  return dovetailor::flank_taper_slope(ctx.job.dovetail, side);
 }
 
 double cutter_axis_x(const PlanContext& ctx, Side side, double stock, double tip_above_base) {

@@ -1,0 +1,74 @@
+#pragma once
+
+#include <functional>
+#include <vector>
+
+#include <dovetailor/check_report.hpp>
+#include <dovetailor/job.hpp>
+#include <dovetailor/program_source.hpp>
+
+namespace dovetailor {
+
+// The checker: reads an RS-274 program (rs274_interpreter.hpp), simulates
+// every move of the whole tool body against the job's stock in section
+// planes across the slide ("stations") and in plan view, and measures the
+// result at every station with virtual pins (section_measure.hpp).
+//
+// Simulation, per station plane y:
+//  - The stock starts as the stock rectangle. Each move's flutes sweep
+//    (swept_region.hpp) is taken from it; neck, shank and holder sweeps must
+//    not overlap it. The tool is the job's [[tool]] with the program's T
+//    number in the spindle (M6). A move with no tool in the spindle uses the
+//    tool last selected with T; a tool the job does not list is an error
+//    finding (UnknownTool) and its moves are not simulated, because nothing
+//    can be said about them.
+//  - Consecutive moves along Y at one X and Z with the same tool, kind and
+//    spindle state are swept as one move (their union is the same area);
+//    findings then name the line of the move that crosses the station, or the
+//    run's nearest end move when none crosses it.
+//  - Stations that hold the same material share one evaluation of a move
+//    (stock is shared between them until they differ), and a small cache
+//    remembers the result of (material, move shape) pairs, so repeated passes
+//    cost one lookup.
+// In 3-D (not tied to stations): every move of the body, taken as a stack
+// of cylinders of each part's largest radius, against the [[fixture]] boxes;
+// rapids below the safe height against the stock outline in plan view
+// (the flutes' circle against the stock rectangle); spindle speeds against
+// machine.max_rpm.
+//
+// Tolerances: a gouge is material removed from the finished part deeper than
+// half the width tolerance band (at least 1 um); stock left is material
+// outside the finished part thicker than the same. The reading at each
+// station must lie in the width tolerance band around the target reading.
+// The radial-engagement limit of a dovetail cutter is the largest radial step
+// the planner takes with it for this job (plan.hpp), or a tenth of its
+// diameter when the job cannot be planned (the planner's cap, common
+// practice); end mills are not limited (they slot at full width by design).
+//
+// The safe height is the planner's (plan.hpp: 0.2 in / 5 mm above the top
+// face); the simulated tool starts above work zero at that height.
+
+struct CheckOptions {
+  // Stations: both ends of the finished dovetail, 1 mm (0.04 in) inside each
+  // end, and evenly between. At least 1; one station sits in the middle.
+  int stations = 5;
+  // Findings kept per kind (the rest are only counted).
+  int findings_per_kind = 20;
+  // Called now and then with the number of program lines read so far, so a
+  // caller can show progress (the core prints nothing).
+  std::function<void(long lines)> progress{};
+  // How many lines between progress calls.
+  long progress_every = 10000;
+};
+
+// The station planes for a job: y positions in mm, front to back. Where the
+// finished section runs: the whole dovetail length for open ends; short of a
+// closed end by the largest tool radius (the cutter's round end is there).
+std::vector<double> station_positions(const Job& job, int stations);
+
+// Reads and simulates the whole program. Throws InputError for a program the
+// reader refuses (with the program's name and line) and for options out of
+// range (stations below 1 or above 1000).
+CheckReport check(ProgramSource& program, const Job& job, const CheckOptions& options = {});
+
+}  // namespace dovetailor

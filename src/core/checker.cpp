@@ -1,0 +1,305 @@
+#include <algorithm>
+#include <cmath>
+#include <set>
+
+#include <fmt/format.h>
+
+#include <dovetailor/checker.hpp>
+#include <dovetailor/planner.hpp>
+#include <dovetailor/rs274_interpreter.hpp>
+
+#include "check_detail.hpp"
+#include "station_simulator.hpp"
+
+namespace dovetailor {
+namespace {
+
+using detail::FindingSink;
+using detail::MoveFacts;
+using detail::SimTool;
+using detail::StationSimulator;
+using detail::StationTarget;
+
+double by_units(Units units, double inch, double mm) {
+  return units == Units::Inch ? to_mm(inch, Units::Inch) : mm;
+}
+
+double largest_tool_radius(const Job& job) {
+  double r = 0;
+  for (const Tool& t : job.tools) r = std::max(r, t.diameter / 2);
+  return r;
+}
+
+// What the planner says about this job: the safe height and, per dovetail
+// cutter, the largest radial step it takes. Jobs it cannot plan fall back to
+// its fixed figures.
+struct PlannerRules {
+  double safe_z = 0;
+  std::vector<std::pair<int, double>> radial_limits;
+};
+
+PlannerRules planner_rules(const Job& job) {
+  PlannerRules rules;
+  rules.safe_z = by_units(job.units, 0.2, 5);
+  for (const Tool& t : job.tools)
+    if (t.kind == ToolKind::Dovetail) rules.radial_limits.emplace_back(t.number, 0.1 * t.diameter);
+  try {
+    const Plan p = plan(job);
+    rules.safe_z = p.safe_z;
+    for (auto& [number, limit] : rules.radial_limits) {
+      double largest = 0;
+      for (const Pass* pass : all_passes(p))
+        if (pass->tool == number) largest = std::max(largest, pass->radial_step);
+      if (largest > 0) limit = largest;
+    }
+  } catch (const InputError&) {
+    // A job the planner refuses can still be checked; its fixed rules apply.
+  }
+  return rules;
+}
+
+SectionRegion disc(Point2 centre, double radius) {
+  Ring ring;
+  constexpr int sides = 32;
+  for (int i = 0; i < sides; ++i) {
+    const double t = 2 * pi * i / sides;
+    ring.push_back({centre.x + radius * std::cos(t), centre.z + radius * std::sin(t)});
+  }
+  return SectionRegion::from_ring(ring);
+}
+
+StationTarget target_at(const Job& job, double y, int id, double allowance) {
+  StationTarget t;
+  t.id = id;
+  t.section = section_at(job.dovetail, y);
+  t.allowance = allowance;
+  t.part = SectionRegion::from_ring(
+      part_outline(t.section, stock_left_x(job), stock_right_x(job), job.stock.height));
+  t.forbidden = offset(t.part, -allowance);
+  // A chamfer on the top edges may be cut: no gouge there.
+  if (t.section.chamfer > 0)
+    for (const Flank* f : {&t.section.left, &t.section.right})
+      t.forbidden = subtract(t.forbidden, disc(f->top, 2 * t.section.chamfer + allowance));
+  return t;
+}
+
+ArcMove arc_move(const PathSegment& s) {
+  const ArcShape& a = *s.arc;
+  return {.from = s.start,
+          .to = s.end,
+          .centre = a.centre,
+          .plane = a.plane == Plane::XY   ? ArcPlane::XY
+                   : a.plane == Plane::ZX ? ArcPlane::ZX
+                                          : ArcPlane::YZ,
+          .turn = a.direction == ArcDirection::Clockwise ? Turn::Clockwise : Turn::CounterClockwise,
+          .extra_turns = std::max(0, a.turns - 1)};
+}
+
+class Checker {
+ public:
+  Checker(const Job& job, const CheckOptions& options)
+      : job_(job), options_(options), sink_(job.units, options.findings_per_kind) {}
+
+  CheckReport run(ProgramSource& program);
+
+ private:
+  void motion(const Event& event, const Motion& m, StationSimulator& sim);
+  void fixtures(const SimTool& tool, const Point3& from, const Point3& to, int line);
+  const SimTool* tool_for(const Event& event);
+
+  const Job& job_;
+  const CheckOptions& options_;
+  FindingSink sink_;
+  PlannerRules rules_;
+  std::vector<SimTool> tools_;
+  std::set<int> unknown_reported_;
+  bool no_tool_reported_ = false;
+  int end_line_ = 0;
+  long moves_ = 0;
+};
+
+const SimTool* Checker::tool_for(const Event& event) {
+  const int number = event.state.tool != 0 ? event.state.tool : event.state.selected_tool;
+  for (const SimTool& t : tools_)
+    if (t.number == number) return &t;
+  const auto& m = std::get<Motion>(event.body);
+  const bool low = std::min(m.programmed.start.z, m.programmed.end.z) < 0;
+  if (number == 0) {
+    if (low && !no_tool_reported_) {
+      no_tool_reported_ = true;
+      sink_.add({.kind = FindingKind::UnknownTool,
+                 .severity = Severity::Warning,
+                 .line = event.line,
+                 .text = "moves below the top face with no tool in the spindle (no T and M6 "
+                         "yet): not simulated"});
+    }
+    return nullptr;
+  }
+  if (unknown_reported_.insert(number).second)
+    sink_.add({.kind = FindingKind::UnknownTool,
+               .severity = Severity::Error,
+               .line = event.line,
+               .amount = static_cast<double>(number),
+               .text = fmt::format("the program cuts with T{}, which the job does not list in "
+                                   "[[tool]]: its moves cannot be checked",
+                                   number)});
+  return nullptr;
+}
+
+void Checker::fixtures(const SimTool& tool, const Point3& from, const Point3& to, int line) {
+  for (const Fixture& f : job_.fixtures) {
+    if (auto part = detail::body_meets_box(tool.body, from, to, f)) {
+      sink_.add({.kind = FindingKind::FixtureCollision,
+                 .severity = Severity::Error,
+                 .line = line,
+                 .text = fmt::format("the {} of T{} runs into {}", body_part_name(*part),
+                                     tool.number, f.name)});
+      return;
+    }
+  }
+}
+
+void Checker::motion(const Event& event, const Motion& m, StationSimulator& sim) {
+  ++moves_;
+  const SimTool* tool = tool_for(event);
+  if (!tool) return;
+  const bool spindle_on =
+      event.state.spindle != SpindleDirection::Stopped && event.state.spindle_rpm > 0;
+  const detail::PlanRect outline{stock_left_x(job_), stock_right_x(job_), 0, job_.stock.length};
+  for (const PathSegment& seg : m.tool_centre) {
+    MoveFacts facts{.line = event.line,
+                    .kind = m.kind,
+                    .spindle_on = spindle_on,
+                    .plunging = seg.end.z < seg.start.z - 1e-9};
+    if (seg.arc) {
+      const ArcMove arc = arc_move(seg);
+      if (arc.plane != ArcPlane::XY) facts.plunging = true;  // part of it runs downward
+      sim.arc(*tool, arc, facts);
+      if (!job_.fixtures.empty()) {
+        const auto points = arc_points(arc, 0.01);
+        for (std::size_t i = 0; i + 1 < points.size(); ++i)
+          fixtures(*tool, points[i], points[i + 1], event.line);
+      }
+      continue;
+    }
+    sim.line(*tool, seg.start, seg.end, facts);
+    fixtures(*tool, seg.start, seg.end, event.line);
+    if (m.kind != MotionKind::Rapid) continue;
+    const double radius = tool->body.sections.front().max_radius();
+    if (auto below = detail::rapid_below(seg.start, seg.end, rules_.safe_z, radius, outline))
+      sink_.add({.kind = FindingKind::RapidBelowSafeHeight,
+                 .severity = Severity::Warning,
+                 .line = event.line,
+                 .amount = *below,
+                 .limit = rules_.safe_z,
+                 .text = fmt::format("rapid move over the stock {} below the safe height {}",
+                                     detail::show_length(*below, job_.units),
+                                     detail::show_length(rules_.safe_z, job_.units))});
+  }
+}
+
+CheckReport Checker::run(ProgramSource& program) {
+  rules_ = planner_rules(job_);
+  for (const Tool& t : job_.tools) {
+    double limit = 0;
+    for (const auto& [number, l] : rules_.radial_limits)
+      if (number == t.number) limit = l;
+    tools_.push_back(detail::make_sim_tool(t, static_cast<int>(tools_.size()), limit));
+  }
+  const std::vector<double> ys = station_positions(job_, options_.stations);
+  const Tolerance& tol = job_.dovetail.tolerance;
+  const double allowance = std::max((tol.upper - tol.lower) / 2, 0.001);
+  const bool tapered = flank_taper_slope(job_.dovetail, Side::Left) != 0 ||
+                       flank_taper_slope(job_.dovetail, Side::Right) != 0;
+  std::vector<StationTarget> targets;
+  for (std::size_t i = 0; i < ys.size(); ++i)
+    if (tapered || i == 0)
+      targets.push_back(target_at(job_, ys[i], static_cast<int>(i), allowance));
+    else
+      targets.push_back(targets.front());
+  const SectionRegion stock =
+      SectionRegion::rectangle(stock_left_x(job_), -job_.stock.height, stock_right_x(job_), 0);
+  StationSimulator sim(ys, std::move(targets), stock, sink_);
+
+  InterpreterOptions io;
+  for (const Tool& t : job_.tools) io.tools.push_back({t.number, t.diameter / 2, 0});
+  io.initial_units = job_.units;
+  io.start_mm = {0, 0, rules_.safe_z};
+  Rs274Interpreter reader(program, io);
+  CheckReport report;
+  report.program = program.name();
+  long next_progress = options_.progress_every;
+  while (auto event = reader.next()) {
+    if (options_.progress && event->line >= next_progress) {
+      options_.progress(event->line);
+      next_progress = event->line + options_.progress_every;
+    }
+    report.lines = event->line;
+    if (const auto* m = std::get_if<Motion>(&event->body)) {
+      motion(*event, *m, sim);
+    } else if (const auto* change = std::get_if<ToolChange>(&event->body)) {
+      if (change->tool != 0 && !find_tool(job_, change->tool) &&
+          unknown_reported_.insert(change->tool).second)
+        sink_.add({.kind = FindingKind::UnknownTool,
+                   .severity = Severity::Error,
+                   .line = event->line,
+                   .amount = static_cast<double>(change->tool),
+                   .text = fmt::format("M6 loads T{}, which the job does not list in "
+                                       "[[tool]]: its moves cannot be checked",
+                                       change->tool)});
+    } else if (const auto* spindle = std::get_if<SpindleChange>(&event->body)) {
+      const auto& max = job_.machine.max_rpm;
+      if (max && spindle->direction != SpindleDirection::Stopped && spindle->rpm > *max * 1.000001)
+        sink_.add({.kind = FindingKind::SpindleSpeed,
+                   .severity = Severity::Warning,
+                   .line = event->line,
+                   .amount = spindle->rpm,
+                   .limit = *max,
+                   .text = fmt::format("spindle speed {:.0f} rev/min is above the machine's "
+                                       "maximum {:.0f} rev/min (machine.max_rpm)",
+                                       spindle->rpm, *max)});
+    } else if (const auto* end = std::get_if<ProgramEnd>(&event->body)) {
+      report.end = end->how;
+      end_line_ = event->line;
+      if (end->how == EndKind::EndOfInput)
+        sink_.add({.kind = FindingKind::NoProgramEnd,
+                   .severity = Severity::Warning,
+                   .line = event->line,
+                   .text = "the program ends without M2, M30 or '%'"});
+    }
+  }
+  sim.flush();
+  if (options_.progress) options_.progress(report.lines);
+  report.units = job_.units;
+  report.type = job_.dovetail.type;
+  report.tolerance = tol;
+  report.moves = moves_;
+  detail::measure_stations(job_, sim, sink_, end_line_, report);
+  report.findings = sink_.take_findings();
+  report.counts = sink_.counts();
+  return report;
+}
+
+}  // namespace
+
+std::vector<double> station_positions(const Job& job, int stations) {
+  const double margin = by_units(job.units, 0.04, 1);
+  const double radius = largest_tool_radius(job);
+  const Ends ends = job.dovetail.ends;
+  const double start = ends == Ends::Closed ? radius : 0;
+  const double end = ends == Ends::Open ? job.dovetail.length : job.dovetail.length - radius;
+  double lo = start + margin, hi = end - margin;
+  if (hi < lo) lo = hi = (start + end) / 2;
+  std::vector<double> ys;
+  if (stations == 1) return {(lo + hi) / 2};
+  for (int i = 0; i < stations; ++i) ys.push_back(lo + (hi - lo) * i / (stations - 1));
+  return ys;
+}
+
+CheckReport check(ProgramSource& program, const Job& job, const CheckOptions& options) {
+  if (options.stations < 1 || options.stations > 1000)
+    throw InputError(fmt::format("{} stations: give 1 to 1000", options.stations), {}, "stations");
+  return Checker(job, options).run(program);
+}
+
+}  // namespace dovetailor
