@@ -9,11 +9,8 @@
 
 namespace dovetailor {
 
-using detail::g_group;
 using detail::g_name;
 using detail::is_cycle;
-using detail::m_group;
-using detail::m_name;
 
 void Rs274BlockExecutor::go_home() {
   const std::string code = g_name(g_[0]->number);
