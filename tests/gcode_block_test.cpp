@@ -258,12 +258,13 @@ TEST(gcode_block, tool_change_follows_the_post) {
   EXPECT_EQ(format_block(changer[0], full(), Units::Inch),
             "T2 M6 (tool 2: 3/4 in 60 deg dovetail cutter)");
   // Without a changer: stop the spindle, then a program stop M0 (NISTIR 6556
-  // 3.6.1) with the instruction in a comment.
+  // 3.6.1) with the instruction in a comment; T selects the tool without a
+  // change (NISTIR 6556, T word, from memory), so a reader knows which it is.
   const auto manual = tool_change_blocks(small(), 2, "3/4 in dovetail cutter");
   ASSERT_EQ(manual.size(), 2u);
   EXPECT_EQ(format_block(manual[0], small(), Units::Inch), "M5");
   EXPECT_EQ(format_block(manual[1], small(), Units::Inch),
-            "M0 (change to tool 2: 3/4 in dovetail cutter, then cycle start)");
+            "T2 M0 (change to tool 2: 3/4 in dovetail cutter, then cycle start)");
 }
 
 }  // namespace

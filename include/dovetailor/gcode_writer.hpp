@@ -92,12 +92,12 @@ double contour_offset(const Plan& plan, const Pass& pass);
 // positive wear offset.
 double lead_length(const Plan& plan);
 
-enum class Coolant { Flood, Mist, Off };
+enum class CoolantChoice { Flood, Mist, Off };
 
 struct ProgramOptions {
   std::string date{};            // written as given in the header; empty: no date line
   std::optional<Units> units{};  // default: program_units(post, job units)
-  Coolant coolant = Coolant::Flood;
+  CoolantChoice coolant = CoolantChoice::Flood;
   std::string title{};  // first header line; empty: "program for <part>"
 };
 

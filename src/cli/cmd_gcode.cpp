@@ -26,10 +26,10 @@ std::string today() {
   return text;
 }
 
-Coolant parse_coolant(const std::string& word) {
-  if (word == "flood") return Coolant::Flood;
-  if (word == "mist") return Coolant::Mist;
-  if (word == "off") return Coolant::Off;
+CoolantChoice parse_coolant(const std::string& word) {
+  if (word == "flood") return CoolantChoice::Flood;
+  if (word == "mist") return CoolantChoice::Mist;
+  if (word == "off") return CoolantChoice::Off;
   throw InputError("give flood, mist or off, not \"" + word + "\"", {}, "--coolant");
 }
 

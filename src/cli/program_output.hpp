@@ -12,7 +12,7 @@ namespace dovetailor::cli {
 std::string today();
 
 // "flood", "mist" or "off"; an InputError naming --coolant otherwise.
-Coolant parse_coolant(const std::string& word);
+CoolantChoice parse_coolant(const std::string& word);
 
 // Refuses an output path that is the job file itself.
 void refuse_job_file(const std::string& output, const std::string& job_file);

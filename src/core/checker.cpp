@@ -114,12 +114,17 @@ class Checker {
   std::vector<SimTool> tools_;
   std::set<int> unknown_reported_;
   bool no_tool_reported_ = false;
+  int hand_changed_ = 0;  // tool fitted by hand at a program stop
   int end_line_ = 0;
   long moves_ = 0;
 };
 
 const SimTool* Checker::tool_for(const Event& event) {
-  const int number = event.state.tool != 0 ? event.state.tool : event.state.selected_tool;
+  // A control without a tool changer stops (M0/M1) for the operator to fit
+  // the tool the last T word named: from such a stop on, that tool is in.
+  const int number = hand_changed_ != 0 && hand_changed_ == event.state.selected_tool
+                         ? hand_changed_
+                         : (event.state.tool != 0 ? event.state.tool : event.state.selected_tool);
   for (const SimTool& t : tools_)
     if (t.number == number) return &t;
   const auto& m = std::get<Motion>(event.body);
@@ -237,7 +242,11 @@ CheckReport Checker::run(ProgramSource& program) {
     report.lines = event->line;
     if (const auto* m = std::get_if<Motion>(&event->body)) {
       motion(*event, *m, sim);
+    } else if (std::holds_alternative<Stop>(event->body)) {
+      if (event->state.selected_tool != event->state.tool)
+        hand_changed_ = event->state.selected_tool;
     } else if (const auto* change = std::get_if<ToolChange>(&event->body)) {
+      hand_changed_ = 0;
       if (change->tool != 0 && !find_tool(job_, change->tool) &&
           unknown_reported_.insert(change->tool).second)
         sink_.add({.kind = FindingKind::UnknownTool,

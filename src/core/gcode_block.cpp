@@ -304,8 +304,10 @@ std::vector<Block> tool_change_blocks(const Post& post, int tool, std::string_vi
   if (post.tool_changer)
     return {Block{.words = {{'T', static_cast<double>(tool)}, {'M', 6}},
                   .comment = fmt::format("tool {}{}", tool, what)}};
+  // No changer: the T word names the tool (RS274NGC lets T stand alone: it
+  // selects without changing) and the stop lets the operator fit it.
   return {Block{.words = {{'M', 5}}},
-          Block{.words = {{'M', 0}},
+          Block{.words = {{'T', static_cast<double>(tool)}, {'M', 0}},
                 .comment = fmt::format("change to tool {}{}, then cycle start", tool, what)}};
 }
 

@@ -138,15 +138,15 @@ std::vector<std::string> header_lines(const Plan& plan, const Post& post,
         "no tool length offsets: touch off each tool on the top face, Z0, after the "
         "change");
   switch (options.coolant) {
-    case Coolant::Flood:
+    case CoolantChoice::Flood:
       out.push_back(fmt::format("coolant: flood, M{}, as asked when the program was written",
                                 post.coolant.flood.value_or(0)));
       break;
-    case Coolant::Mist:
+    case CoolantChoice::Mist:
       out.push_back(fmt::format("coolant: mist, M{}, as asked when the program was written",
                                 post.coolant.mist.value_or(0)));
       break;
-    case Coolant::Off:
+    case CoolantChoice::Off:
       out.push_back("coolant: none, cut dry");
       break;
   }

@@ -91,12 +91,12 @@ class Writer {
                         {}, "coolant");
     };
     switch (options_.coolant) {
-      case Coolant::Off:
+      case CoolantChoice::Off:
         return std::nullopt;
-      case Coolant::Flood:
+      case CoolantChoice::Flood:
         if (!c.flood) throw missing("flood");
         return on ? c.flood : c.off;
-      case Coolant::Mist:
+      case CoolantChoice::Mist:
         if (!c.mist) throw missing("mist");
         return on ? c.mist : c.off;
     }
@@ -215,15 +215,26 @@ class Writer {
     const auto on_line = [&](double y, double z) { return Point3{pass.x_at(y) + off, y, z}; };
     const double ya = y0 - dir * lead, yb = y1 + dir * lead;
     const int g = compensation_code(plan_.target.type, *pass.side, dir);
-    motion(MoveKind::Rapid, on_line(ya, m[0].to.z), 0, {}, {}, "lead-in on the flank line");
+    // Under RS274NGC an axis word left out means "where the tool is", and
+    // with compensation on (or just turned off) the tool is not on the
+    // programmed line: X is written on every block from the lead-in to the
+    // exit, so each names its point on the flank line (NISTIR 6556, cutter
+    // radius compensation, from memory).
+    const auto with_x = [&](auto&&... args) {
+      last_.erase('X');
+      motion(args...);
+    };
+    with_x(MoveKind::Rapid, on_line(ya, m[0].to.z), 0.0, std::vector<Word>{}, std::string{},
+           std::string("lead-in on the flank line"));
     motion(MoveKind::Rapid, on_line(ya, m[1].to.z), 0);
     motion(MoveKind::Feed, on_line(ya, m[2].to.z), m[2].feed);
-    motion(MoveKind::Feed, on_line(y0, pass.z), m[3].feed,
-           {{'G', static_cast<double>(g)}, {'D', static_cast<double>(pass.tool)}}, {},
-           "compensation on: straight entry outside the stock");
-    motion(MoveKind::Feed, on_line(y1, pass.z), m[3].feed);
-    motion(MoveKind::Feed, on_line(yb, pass.z), m[3].feed, {{'G', 40}}, {},
-           "compensation off: straight exit outside the stock");
+    with_x(MoveKind::Feed, on_line(y0, pass.z), m[3].feed,
+           std::vector<Word>{{'G', static_cast<double>(g)}, {'D', static_cast<double>(pass.tool)}},
+           std::string{}, std::string("compensation on: straight entry outside the stock"));
+    with_x(MoveKind::Feed, on_line(y1, pass.z), m[3].feed, std::vector<Word>{}, std::string{},
+           std::string{});
+    with_x(MoveKind::Feed, on_line(yb, pass.z), m[3].feed, std::vector<Word>{{'G', 40}},
+           std::string{}, std::string("compensation off: straight exit outside the stock"));
     motion(MoveKind::Rapid, on_line(yb, m[4].to.z), 0);
   }
 
