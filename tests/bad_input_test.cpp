@@ -64,6 +64,9 @@ struct Case {
   int exit_code = 2;
 };
 
+// Test names show the case name, not its bytes.
+void PrintTo(const Case& c, std::ostream* os) { *os << c.name; }
+
 std::string sample() { return testing::read_source_file("samples/fixture-slide-female.toml"); }
 
 // The sample with the first occurrence of `from` replaced.
@@ -212,6 +215,79 @@ std::vector<Case> catalogue() {
                        {"job.toml", "larger than 16 MiB"}));
   c.push_back({"job_is_a_folder", {{"dir/keep", "x"}}, {"pins", "dir"}, {"dir", "is a folder"}});
   c.push_back({"job_missing", {}, {"plan", "nothing.toml"}, {"nothing.toml", "cannot open"}});
+  // ---- post files (through gcode --post PATH -o FILE: no file may appear) ----
+  const std::string post = testing::read_source_file("post/rs274ngc-full.toml");
+  const auto post_case = [&](std::string name, std::string text, std::vector<std::string> expect) {
+    return Case{std::move(name),
+                {{"job.toml", sample()}, {"bad-post.toml", std::move(text)}},
+                {"gcode", "job.toml", "--post", "bad-post.toml", "-o", "out.ngc"},
+                std::move(expect)};
+  };
+  const auto post_with = [&](const std::string& from, const std::string& to) {
+    std::string text = post;
+    const auto at = text.find(from);
+    if (at == std::string::npos) throw std::logic_error("catalogue: no '" + from + "' in the post");
+    return text.replace(at, from.size(), to);
+  };
+  c.push_back(post_case("post_empty", "", {"bad-post.toml", "name"}));
+  c.push_back(post_case("post_unknown_key", post + "\nspeed_limit = 3\n",
+                        {"bad-post.toml:", "speed_limit", "unknown key"}));
+  c.push_back(post_case("post_decimals_nan", post_with("inch = 4", "inch = nan"),
+                        {"bad-post.toml:", "decimals.inch"}));
+  c.push_back(post_case("post_decimals_huge", post_with("inch = 4", "inch = 99"),
+                        {"bad-post.toml:", "decimals.inch", "out of range"}));
+  c.push_back(post_case("post_units_wrong", post_with("units = \"both\"", "units = \"furlongs\""),
+                        {"bad-post.toml:", "units"}));
+  c.push_back(post_case("post_flag_as_text",
+                        post_with("tool_changer = true", "tool_changer = \"yes\""),
+                        {"bad-post.toml:", "tool_changer", "true or false"}));
+  c.push_back(post_case("post_coolant_code_taken", post_with("flood = 8", "flood = 6"),
+                        {"bad-post.toml:", "coolant.flood"}));
+  c.push_back(post_case("post_line_length_tiny",
+                        post_with("max_line_length = 256", "max_line_length = 3"),
+                        {"bad-post.toml:", "max_line_length", "out of range"}));
+  c.push_back(post_case("post_binary", std::string("\x00\x01\x02PK\x03\x04", 9),
+                        {"bad-post.toml", "not valid TOML"}));
+  c.push_back({"post_missing",
+               {{"job.toml", sample()}},
+               {"gcode", "job.toml", "--post", "nowhere.toml", "-o", "out.ngc"},
+               {"nowhere.toml", "cannot open"}});
+  c.push_back({"gcode_output_over_the_job",
+               {{"job.toml", sample()}},
+               {"gcode", "job.toml", "-o", "job.toml", "--force"},
+               {"job.toml"}});
+  // ---- programs (through check --job) ----
+  const std::string male = testing::read_source_file("samples/stop-block-male.toml");
+  const auto program_case = [&](std::string name, std::string text,
+                                std::vector<std::string> expect) {
+    return Case{std::move(name),
+                {{"job.toml", male}, {"part.ngc", std::move(text)}},
+                {"check", "part.ngc", "--job", "job.toml"},
+                std::move(expect)};
+  };
+  c.push_back(
+      program_case("program_unknown_word", "G21 G90\nG1 X1 Q5 F100\n", {"part.ngc:2", "Q"}));
+  c.push_back(program_case("program_two_motion_codes", "G21\nG0 G1 X1 F100\n", {"part.ngc:2"}));
+  c.push_back(program_case("program_bad_number", "G21\nG1 X1.2.3 F100\n", {"part.ngc:2"}));
+  c.push_back(
+      program_case("program_division_by_zero", "G21\n#1 = [1 / 0]\n", {"part.ngc:2", "zero"}));
+  c.push_back(program_case("program_deep_nesting",
+                           "G21\nG0 X" + std::string(200, '[') + "1" + std::string(200, ']') + "\n",
+                           {"part.ngc:2", "nest"}));
+  c.push_back(program_case("program_million_character_line",
+                           "G21\n(" + std::string(1000000, 'x') + ")\n", {"part.ngc:2"}));
+  c.push_back(program_case("program_100_mib_without_newline", std::string(100u << 20, 'G'),
+                           {"part.ngc:1"}));
+  c.push_back(program_case("program_binary_garbage",
+                           std::string("\x7f"
+                                       "ELF\x02\x01\x01\0\0\0\xff\xfe\x80",
+                                       16),
+                           {"part.ngc:1"}));
+  c.push_back(
+      program_case("program_arc_without_centre", "G21 G17\nG2 X10 Y0 F100\n", {"part.ngc:2"}));
+  c.push_back(program_case("program_feed_without_f", "G21 G94\nG1 X10\n", {"part.ngc:2", "F"}));
+  c.push_back(
+      {"program_without_job", {{"part.ngc", "G21\nM2\n"}}, {"check", "part.ngc"}, {"--job"}});
   // ---- command lines ----
   c.push_back({"pins_without_anything", {}, {"pins"}, {"--type", "missing"}});
   c.push_back(

@@ -257,3 +257,18 @@ TEST(checker, reader_errors_name_the_program_and_line) {
 
 }  // namespace
 }  // namespace dovetailor
+
+namespace dovetailor {
+namespace {
+
+TEST(checker, refuses_a_program_longer_than_the_line_limit) {
+  const Job job = read_job(testing::read_source_file("samples/stop-block-male.toml"), "job.toml");
+  std::string program = "G21 G90\n";
+  for (int i = 0; i < 200; ++i) program += "G0 X0 Y-50 Z10\n";
+  StringProgramSource source(program, "long.ngc");
+  testing::expect_input_error([&] { check(source, job, {.stations = 1, .max_lines = 100}); },
+                              {"long.ngc:101", "program length", "longer than 100 lines"});
+}
+
+}  // namespace
+}  // namespace dovetailor

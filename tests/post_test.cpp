@@ -65,9 +65,15 @@ TEST(post, iso6983_post_numbers_lines_and_frames_with_percent) {
   EXPECT_EQ(post.end_lines, (std::vector<std::string>{"M30", "%"}));
 }
 
-TEST(post, empty_file_gives_documented_defaults) {
-  const Post post = read_post("", "empty.toml");
-  EXPECT_EQ(post, Post{});
+TEST(post, empty_file_is_refused_as_nameless) {
+  expect_input_error([] { read_post("", "empty.toml"); }, {"empty.toml", "name", "missing"});
+}
+
+TEST(post, named_file_gives_documented_defaults) {
+  const Post post = read_post("name = \"bare\"\n", "bare.toml");
+  Post defaults;
+  defaults.name = "bare";
+  EXPECT_EQ(post, defaults);
   EXPECT_EQ(post.decimals, (Decimals{.inch = 4, .mm = 3, .feed = 1}));
   EXPECT_EQ(post.line_numbers, (LineNumbers{.enabled = false, .start = 10, .step = 10}));
 }
@@ -88,7 +94,7 @@ TEST(post, unknown_key_is_named_with_its_line) {
 }
 
 TEST(post, wrong_type_is_named_with_its_line) {
-  expect_input_error([] { read_post("\ntool_changer = \"yes\"\n", "p.toml"); },
+  expect_input_error([] { read_post("name = \"x\"\ntool_changer = \"yes\"\n", "p.toml"); },
                      {"p.toml:2", "tool_changer", "expected true or false"});
   expect_input_error([] { read_post("start = \"%\"\n", "p.toml"); },
                      {"p.toml:1", "start", "expected an array"});
@@ -132,8 +138,8 @@ TEST(post, coolant_codes_cannot_reuse_stop_or_spindle_codes) {
                      {"coolant.off", "needs a code to switch it off"});
   expect_input_error([] { read_post("[coolant]\nmist = \"no\"\n", "p.toml"); },
                      {"p.toml:2", "coolant.mist", "\"none\""});
-  const Post none =
-      read_post("[coolant]\nflood = \"none\"\nmist = \"none\"\noff = \"none\"\n", "p");
+  const Post none = read_post(
+      "name = \"x\"\n[coolant]\nflood = \"none\"\nmist = \"none\"\noff = \"none\"\n", "p");
   EXPECT_EQ(none.coolant, (CoolantCodes{std::nullopt, std::nullopt, std::nullopt}));
 }
 

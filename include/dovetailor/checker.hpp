@@ -59,6 +59,9 @@ struct CheckOptions {
   std::function<void(long lines)> progress{};
   // How many lines between progress calls.
   long progress_every = 10000;
+  // A program longer than this many lines is refused: far beyond any
+  // dovetail program, it is a wrong file or a runaway generator.
+  long max_lines = 20'000'000;
 };
 
 // The station planes for a job: y positions in mm, front to back. Where the

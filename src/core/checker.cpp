@@ -240,6 +240,11 @@ CheckReport Checker::run(ProgramSource& program) {
       next_progress = event->line + options_.progress_every;
     }
     report.lines = event->line;
+    if (event->line > options_.max_lines)
+      throw InputError(fmt::format("the program is longer than {} lines; a dovetail program is "
+                                   "far shorter: is this the right file?",
+                                   options_.max_lines),
+                       {program.name(), event->line}, "program length");
     if (const auto* m = std::get_if<Motion>(&event->body)) {
       motion(*event, *m, sim);
     } else if (std::holds_alternative<Stop>(event->body)) {

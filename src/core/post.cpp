@@ -30,7 +30,8 @@ class PostReader {
 
   Post read() {
     TableReader top(root_, "", file_);
-    post_.name = top.text("name").value_or("");
+    const auto name = top.text("name");
+    post_.name = name.value_or("");
     post_.description = top.text("description").value_or("");
     if (auto units = top.choice<PostUnits>(
             "units",
@@ -59,6 +60,11 @@ class PostReader {
     read_decimals(top);
     read_coolant(top);
     top.reject_unknown();
+    // A post must say what it is: an empty or foreign file is refused rather
+    // than silently taken as all defaults.
+    if (post_.name.empty())
+      top.fail("name",
+               "missing; every post file names itself: name = \"...\" (see post/README.md)");
     return post_;
   }
 

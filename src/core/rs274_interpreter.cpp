@@ -30,7 +30,7 @@ void Rs274Interpreter::push(int line, EventBody body) {
 
 void Rs274Interpreter::push_motion(int line, MotionKind kind, PathSegment programmed,
                                    std::vector<PathSegment> tool_centre, double feed, bool canned) {
-  push(line, Motion{kind, std::move(programmed), std::move(tool_centre), feed, canned});
+  push(line, Motion{kind, programmed, std::move(tool_centre), feed, canned});
 }
 
 bool Rs274Interpreter::read_block() {
