@@ -83,6 +83,12 @@ Case job_case(std::string name, std::string text, std::vector<std::string> expec
       std::move(name), {{"job.toml", std::move(text)}}, {command, "job.toml"}, std::move(expect)};
 }
 
+// A string of the bytes of a literal, embedded NULs included (not the final one).
+template <std::size_t N>
+std::string bytes(const char (&literal)[N]) {
+  return std::string(literal, N - 1);
+}
+
 std::vector<Case> catalogue() {
   std::vector<Case> c;
   // ---- job files: types, keys, units ----
@@ -136,9 +142,8 @@ std::vector<Case> catalogue() {
   c.push_back(job_case("empty_file", "", {"job.toml:", "units", "missing"}));
   c.push_back(job_case("only_whitespace", "\n\n   \n", {"job.toml:", "units", "missing"}));
   c.push_back(job_case("binary_garbage",
-                       std::string("\x7f"
-                                   "ELF\x02\x01\x01\0\0\0\xff\xfe\x80",
-                                   16),
+                       bytes("\x7f"
+                             "ELF\x02\x01\x01\0\0\0\xff\xfe\x80"),
                        {"job.toml:1:", "not valid TOML"}));
   c.push_back(
       job_case("invalid_utf8", "units = \"\xc3\x28\"\n", {"job.toml:1:", "not valid TOML"}));
@@ -246,7 +251,7 @@ std::vector<Case> catalogue() {
   c.push_back(post_case("post_line_length_tiny",
                         post_with("max_line_length = 256", "max_line_length = 3"),
                         {"bad-post.toml:", "max_line_length", "out of range"}));
-  c.push_back(post_case("post_binary", std::string("\x00\x01\x02PK\x03\x04", 9),
+  c.push_back(post_case("post_binary", bytes("\x00\x01\x02PK\x03\x04"),
                         {"bad-post.toml", "not valid TOML"}));
   c.push_back({"post_missing",
                {{"job.toml", sample()}},
@@ -279,9 +284,8 @@ std::vector<Case> catalogue() {
   c.push_back(program_case("program_100_mib_without_newline", std::string(100u << 20, 'G'),
                            {"part.ngc:1"}));
   c.push_back(program_case("program_binary_garbage",
-                           std::string("\x7f"
-                                       "ELF\x02\x01\x01\0\0\0\xff\xfe\x80",
-                                       16),
+                           bytes("\x7f"
+                                 "ELF\x02\x01\x01\0\0\0\xff\xfe\x80"),
                            {"part.ngc:1"}));
   c.push_back(
       program_case("program_arc_without_centre", "G21 G17\nG2 X10 Y0 F100\n", {"part.ngc:2"}));
