@@ -96,9 +96,9 @@ struct Tool {
   // spindle speed in rev/min, feed in mm/min, chip load (feed per tooth as
   // programmed, no chip-thinning increase applied) in mm. A feed overrides a
   // chip load; the reader refuses both on one tool.
-  std::optional<double> rpm;
-  std::optional<double> feed;
-  std::optional<double> chip_load;
+  std::optional<double> rpm = {};
+  std::optional<double> feed = {};
+  std::optional<double> chip_load = {};
 
   bool operator==(const Tool&) const = default;
 };
@@ -113,8 +113,8 @@ struct Gauge {
 struct Machine {
   MachineKind kind = MachineKind::Cnc;
   // Limits the cutting data is capped at: spindle rev/min, feed in mm/min.
-  std::optional<double> max_rpm;
-  std::optional<double> max_feed;
+  std::optional<double> max_rpm = {};
+  std::optional<double> max_feed = {};
 
   bool operator==(const Machine&) const = default;
 };
