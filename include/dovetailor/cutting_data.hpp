@@ -40,7 +40,7 @@ double engagement_angle(double radial_step, double diameter);
 // chip the feed per tooth is raised by 1 / sin(phi) = D / (2 sqrt(ae (D - ae))),
 // capped at `limit` (very light steps would otherwise ask for feeds that
 // mark the work and load the cutter when the step comes out heavier than
-// planned). 1 for ae >= D/2.
+// planned). 1 for ae >= D/2; `limit` for ae <= 0.
 double chip_thinning_factor(double radial_step, double diameter, double limit);
 
 struct CuttingOptions {

@@ -131,9 +131,9 @@ struct Tool {
   // spindle speed in rev/min, feed in mm/min, chip load (feed per tooth as
   // programmed, no chip-thinning increase applied) in mm. A feed overrides a
   // chip load; the reader refuses both on one tool.
-  std::optional<double> rpm;
-  std::optional<double> feed;
-  std::optional<double> chip_load;
+  std::optional<double> rpm = {};
+  std::optional<double> feed = {};
+  std::optional<double> chip_load = {};
 
   bool operator==(const Tool&) const = default;
 };
@@ -179,11 +179,11 @@ struct ManualFeeds {
 struct Machine {
   MachineKind kind = MachineKind::Cnc;
   // Limits the cutting data is capped at: spindle rev/min, feed in mm/min.
-  std::optional<double> max_rpm;
-  std::optional<double> max_feed;
+  std::optional<double> max_rpm = {};
+  std::optional<double> max_feed = {};
   // Dials and datum procedure; set for kind = manual when the file gives them
   // (the pass sheet then prints dial settings).
-  std::optional<ManualFeeds> manual;
+  std::optional<ManualFeeds> manual = {};
 
   bool operator==(const Machine&) const = default;
 };
