@@ -3,6 +3,7 @@
 #include <string>
 
 #include <dovetailor/sheet.hpp>
+#include <dovetailor/text_wrap.hpp>
 
 namespace dovetailor {
 
@@ -13,8 +14,5 @@ namespace dovetailor {
 // its column is wrapped inside the column, never cut off.
 std::string sheet_text(const Sheet& sheet);
 
-// Lines of at most `width` columns holding the words of `text` (a word longer
-// than the width stands alone on its line).
-std::vector<std::string> wrap_words(const std::string& text, std::size_t width);
 
 }  // namespace dovetailor

@@ -5,6 +5,7 @@
 #include <fmt/format.h>
 
 #include <dovetailor/plan_report.hpp>
+#include <dovetailor/text_wrap.hpp>
 
 #include "gcode_writer_detail.hpp"
 
@@ -215,26 +216,6 @@ std::string ProgramShow::len(double mm) const {
 std::string ProgramShow::feed(double mm_per_min) const {
   return units == Units::Inch ? fmt::format("{:.1f} in/min", from_mm(mm_per_min, units))
                               : fmt::format("{:.0f} mm/min", mm_per_min);
-}
-
-std::vector<std::string> wrap_words(const std::string& text, std::size_t width) {
-  std::vector<std::string> lines;
-  std::string row;
-  std::size_t start = 0;
-  while (start <= text.size()) {
-    std::size_t end = text.find(' ', start);
-    if (end == std::string::npos) end = text.size();
-    const std::string word = text.substr(start, end - start);
-    start = end + 1;
-    if (word.empty()) continue;
-    if (!row.empty() && row.size() + 1 + word.size() > width) {
-      lines.push_back(row);
-      row.clear();
-    }
-    row += (row.empty() ? "" : " ") + word;
-  }
-  if (!row.empty()) lines.push_back(row);
-  return lines;
 }
 
 }  // namespace dovetailor::detail

@@ -6,6 +6,7 @@
 #include <vector>
 
 #include <dovetailor/gcode_writer.hpp>
+#include <dovetailor/text_wrap.hpp>
 
 namespace dovetailor::detail {
 
@@ -17,8 +18,7 @@ struct ProgramShow {
   std::string feed(double mm_per_min) const;  // "3.9 in/min"
 };
 
-// `text` cut at spaces into lines of at most `width` characters.
-std::vector<std::string> wrap_words(const std::string& text, std::size_t width);
+using dovetailor::wrap_words;
 
 // The header comment lines (not yet wrapped).
 std::vector<std::string> header_lines(const Plan& plan, const Post& post,

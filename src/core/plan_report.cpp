@@ -5,19 +5,12 @@
 #include <dovetailor/length_text.hpp>
 #include <dovetailor/plan_report.hpp>
 
+#include "unit_text.hpp"
+
 namespace dovetailor {
 namespace {
 
-struct Show {
-  Units u;
-  std::string num(double mm) const { return length_number(mm, u); }
-  std::string len(double mm) const { return length_text(mm, u); }
-  std::string feed(double mm_per_min) const {
-    return u == Units::Inch ? fmt::format("{:.1f}", from_mm(mm_per_min, u))
-                            : fmt::format("{:.0f}", mm_per_min);
-  }
-  std::string feed_unit() const { return u == Units::Inch ? "in/min" : "mm/min"; }
-};
+using Show = detail::UnitText;
 
 std::string role_name(PassRole r) {
   switch (r) {

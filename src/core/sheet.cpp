@@ -5,23 +5,12 @@
 
 #include <dovetailor/sheet.hpp>
 
+#include "unit_text.hpp"
+
 namespace dovetailor {
 namespace {
 
-struct Show {
-  Units u;
-  std::string num(double mm) const {
-    std::string s = fmt::format("{:.{}f}", from_mm(mm, u), length_decimals(u));
-    if (s.starts_with("-") && s.find_first_not_of("-0.") == std::string::npos) s.erase(0, 1);
-    return s;
-  }
-  std::string len(double mm) const { return num(mm) + " " + std::string(unit_symbol(u)); }
-  std::string feed(double mm_per_min) const {
-    return u == Units::Inch ? fmt::format("{:.1f}", from_mm(mm_per_min, u))
-                            : fmt::format("{:.0f}", mm_per_min);
-  }
-  std::string feed_unit() const { return u == Units::Inch ? "in/min" : "mm/min"; }
-};
+using Show = detail::UnitText;
 
 std::string role_name(PassRole r) {
   switch (r) {
