@@ -113,7 +113,7 @@ TEST(checker, planned_half_dovetail_checks_clean) {
 
 TEST(checker, planned_random_jobs_check_clean) {
   std::mt19937_64 rng(20240605);
-  for (int i = 0; i < 20; ++i) {
+  for (int i = 0; i < testing::random_cases(20); ++i) {
     SCOPED_TRACE(i);
     Job job = testing::random_job(rng);
     Plan p;

@@ -1,5 +1,3 @@
-#include <dovetailor/planner.hpp>
-
 #include <cmath>
 #include <random>
 
@@ -8,6 +6,7 @@
 #include <dovetailor/deflection.hpp>
 #include <dovetailor/job_reader.hpp>
 #include <dovetailor/plan_report.hpp>
+#include <dovetailor/planner.hpp>
 
 #include "random_jobs.hpp"
 #include "test_support.hpp"
@@ -105,7 +104,10 @@ std::vector<Planned> random_plans(int count, std::uint64_t seed, int* refused) {
 
 class planner_property : public ::testing::Test {
  protected:
-  static void SetUpTestSuite() { plans_ = new std::vector<Planned>(random_plans(2000, 20261202, &refused_)); }
+  static void SetUpTestSuite() {
+    plans_ =
+        new std::vector<Planned>(random_plans(testing::random_cases(2000), 20261202, &refused_));
+  }
   static void TearDownTestSuite() { delete plans_; }
   static std::vector<Planned>* plans_;
   static int refused_;
@@ -116,7 +118,8 @@ int planner_property::refused_ = 0;
 TEST_F(planner_property, most_random_valid_jobs_plan) {
   // The generator sizes tools to fit; a few combinations are still refused
   // (for instance a slender neck in iron). They must be a small minority.
-  EXPECT_GT(plans_->size(), 1800u) << refused_ << " refused";
+  EXPECT_GT(plans_->size(), static_cast<std::size_t>(testing::random_cases(2000)) * 9 / 10)
+      << refused_ << " refused";
 }
 
 TEST_F(planner_property, no_pass_cuts_beyond_the_finished_flank_or_floor) {
@@ -143,13 +146,15 @@ TEST_F(planner_property, the_finishing_pass_lands_on_the_flank) {
       ++finishing;
       const Flank& f = p.target.flank(*pass->side);
       // The cone's edge at the tip height, independently: axis +/- (R - 0).
-      const bool outward_plus = (*pass->side == Side::Right) == (job.dovetail.type == DovetailType::Female);
+      const bool outward_plus =
+          (*pass->side == Side::Right) == (job.dovetail.type == DovetailType::Female);
       const double edge = pass->x + (outward_plus ? 1 : -1) * cutter.diameter / 2;
       EXPECT_NEAR(edge, flank_x_at(f, pass->z), 1e-9) << "pass " << pass->number;
       EXPECT_EQ(pass->stock_left, 0);
     }
-    EXPECT_EQ(finishing, p.target.angled_flanks() *
-                             static_cast<int>(std::ceil(p.target.depth / (0.9 * cutter.flute_length) - 1e-9)));
+    EXPECT_EQ(finishing,
+              p.target.angled_flanks() *
+                  static_cast<int>(std::ceil(p.target.depth / (0.9 * cutter.flute_length) - 1e-9)));
   }
 }
 
@@ -194,7 +199,8 @@ TEST_F(planner_property, the_dovetail_cutter_never_rises_or_plunges_inside_the_s
       Point3 at = pass->moves.front().to;
       for (const auto& m : pass->moves) {
         const bool vertical = std::abs(m.to.z - at.z) > 1e-12;
-        const bool inside = at.y > -cutter.diameter / 2 && at.y < job.stock.length + cutter.diameter / 2;
+        const bool inside =
+            at.y > -cutter.diameter / 2 && at.y < job.stock.length + cutter.diameter / 2;
         if (vertical && at.z < p.safe_z - 1e-9) {
           EXPECT_FALSE(inside) << "pass " << pass->number;
         }
@@ -352,8 +358,8 @@ TEST(planner, mate_sets_the_width_for_the_wanted_clearance) {
          "clearance = 0.0015 }\n" +
          text.substr(end);
   const Job from_mate = read_job(text, "mate.toml");
-  EXPECT_NEAR(section_of(from_mate.dovetail).width_bottom(), section_of(male.dovetail).width_bottom(),
-              1e-6);
+  EXPECT_NEAR(section_of(from_mate.dovetail).width_bottom(),
+              section_of(male.dovetail).width_bottom(), 1e-6);
   const Plan p = plan(from_mate);
   ASSERT_FALSE(p.notes.empty());
   EXPECT_NE(p.notes.front().find("mate: female read"), std::string::npos);

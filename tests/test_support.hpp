@@ -26,6 +26,17 @@ void expect_input_error(Action&& action, std::initializer_list<std::string> part
   ADD_FAILURE() << "no InputError was thrown";
 }
 
+// How many random cases a property test runs: all of them normally, a tenth
+// (at least one) in the sanitizer build, where every case costs ten times
+// more and the point is memory and UB errors, not coverage of the space.
+constexpr int random_cases(int count) {
+#ifdef DOVETAILOR_SANITIZED
+  return count / 10 > 0 ? count / 10 : 1;
+#else
+  return count;
+#endif
+}
+
 // A path under the source tree, from CMake (never the current directory).
 inline std::string source_path(const std::string& relative) {
   return std::string(DOVETAILOR_SOURCE_DIR) + "/" + relative;

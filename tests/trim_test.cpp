@@ -93,7 +93,7 @@ TEST(trim, under_size_takes_exactly_the_missing_stock) {
   std::mt19937_64 rng(20240614);
   std::uniform_real_distribution<double> unit(0.0, 1.0);
   int checked = 0;
-  for (int i = 0; i < 300; ++i) {
+  for (int i = 0; i < testing::random_cases(300); ++i) {
     const Job job = testing::random_job(rng);
     Plan p;
     try {
@@ -145,7 +145,7 @@ TEST(trim, over_cut_property_over_random_readings) {
   std::mt19937_64 rng(77);
   std::uniform_real_distribution<double> unit(0.0, 1.0);
   int checked = 0;
-  for (int i = 0; i < 200; ++i) {
+  for (int i = 0; i < testing::random_cases(200); ++i) {
     Plan p;
     try {
       p = plan(testing::random_job(rng));
