@@ -138,7 +138,7 @@ TEST(trim, under_size_takes_exactly_the_missing_stock) {
     EXPECT_EQ(t.passes.checkpoints.back().expected, p.final_reading);
     ++checked;
   }
-  EXPECT_GT(checked, 100);
+  EXPECT_GT(checked, testing::random_cases(300) / 3);
 }
 
 TEST(trim, over_cut_property_over_random_readings) {
@@ -163,7 +163,7 @@ TEST(trim, over_cut_property_over_random_readings) {
     EXPECT_EQ(trim(p, {.checkpoint = k, .reading = reading}).verdict, TrimVerdict::OverCut);
     ++checked;
   }
-  EXPECT_GT(checked, 50);
+  EXPECT_GT(checked, testing::random_cases(200) / 4);
 }
 
 TEST(trim, checkpoint_by_number_or_letter) {
