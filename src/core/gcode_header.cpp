@@ -8,6 +8,7 @@
 #include <dovetailor/text_wrap.hpp>
 
 #include "gcode_writer_detail.hpp"
+#include "unit_text.hpp"
 
 namespace dovetailor::detail {
 namespace {
@@ -15,18 +16,6 @@ namespace {
 std::string file_name(const std::string& path) {
   const auto slash = path.find_last_of("/\\");
   return slash == std::string::npos ? path : path.substr(slash + 1);
-}
-
-std::string method_words(const PinReading& r) {
-  switch (r.method) {
-    case ReadingMethod::OverPins:
-      return "over 2 pins";
-    case ReadingMethod::BetweenPins:
-      return "between 2 pins";
-    case ReadingMethod::SquareSideToPin:
-      return "from the square side to 1 pin";
-  }
-  return "";
 }
 
 std::string tool_words(const Tool& t, const Operation& op, const ProgramShow& s) {

@@ -11,25 +11,9 @@ namespace dovetailor {
 namespace {
 
 using Show = detail::UnitText;
-
-std::string role_name(PassRole r) {
-  switch (r) {
-    case PassRole::Rough:
-      return "rough";
-    case PassRole::SemiFinish:
-      return "semi";
-    case PassRole::Finish:
-      return "finish";
-    case PassRole::Spring:
-      return "spring";
-  }
-  return "";
-}
-
-std::string side_name(std::optional<Side> s) {
-  if (!s) return "centre";
-  return *s == Side::Left ? "left" : "right";
-}
+using detail::method_words;
+using detail::role_name;
+using detail::side_name;
 
 std::string mode_name(MillingMode m) {
   switch (m) {
@@ -39,18 +23,6 @@ std::string mode_name(MillingMode m) {
       return "climb";
     case MillingMode::Both:
       return "both";
-  }
-  return "";
-}
-
-std::string method_words(const PinReading& r) {
-  switch (r.method) {
-    case ReadingMethod::OverPins:
-      return "over 2 pins";
-    case ReadingMethod::BetweenPins:
-      return "between 2 pins";
-    case ReadingMethod::SquareSideToPin:
-      return "from the square side to 1 pin";
   }
   return "";
 }

@@ -11,37 +11,9 @@ namespace dovetailor {
 namespace {
 
 using Show = detail::UnitText;
-
-std::string role_name(PassRole r) {
-  switch (r) {
-    case PassRole::Rough:
-      return "rough";
-    case PassRole::SemiFinish:
-      return "semi";
-    case PassRole::Finish:
-      return "finish";
-    case PassRole::Spring:
-      return "spring";
-  }
-  return "";
-}
-
-std::string side_name(std::optional<Side> s) {
-  if (!s) return "centre";
-  return *s == Side::Left ? "left" : "right";
-}
-
-std::string method_words(const PinReading& r) {
-  switch (r.method) {
-    case ReadingMethod::OverPins:
-      return "over 2 pins";
-    case ReadingMethod::BetweenPins:
-      return "between 2 pins";
-    case ReadingMethod::SquareSideToPin:
-      return "from the square side to 1 pin";
-  }
-  return "";
-}
+using detail::method_words;
+using detail::role_name;
+using detail::side_name;
 
 std::string direction_word(AxisDirection d, char axis) {
   return fmt::format("{}{}", d == AxisDirection::Plus ? '+' : '-', axis);

@@ -1,13 +1,14 @@
 #pragma once
 
-// Numbers in a job's units for the text writers (plan, sheet). Internal to
-// the core library.
+// Numbers in a job's units and the short words the text writers (plan,
+// sheet, program header) share. Internal to the core library.
 
 #include <string>
 
 #include <fmt/format.h>
 
 #include <dovetailor/length_text.hpp>
+#include <dovetailor/plan.hpp>
 
 namespace dovetailor::detail {
 
@@ -22,5 +23,39 @@ struct UnitText {
   }
   std::string feed_unit() const { return u == Units::Inch ? "in/min" : "mm/min"; }
 };
+
+// A pass's role for a table column: "rough", "semi", "finish", "spring".
+inline std::string role_name(PassRole r) {
+  switch (r) {
+    case PassRole::Rough:
+      return "rough";
+    case PassRole::SemiFinish:
+      return "semi";
+    case PassRole::Finish:
+      return "finish";
+    case PassRole::Spring:
+      return "spring";
+  }
+  return "";
+}
+
+// The flank a pass works toward: "left", "right", or "centre".
+inline std::string side_name(std::optional<Side> s) {
+  if (!s) return "centre";
+  return *s == Side::Left ? "left" : "right";
+}
+
+// How the reading is taken: "over 2 pins", "between 2 pins", ...
+inline std::string method_words(const PinReading& r) {
+  switch (r.method) {
+    case ReadingMethod::OverPins:
+      return "over 2 pins";
+    case ReadingMethod::BetweenPins:
+      return "between 2 pins";
+    case ReadingMethod::SquareSideToPin:
+      return "from the square side to 1 pin";
+  }
+  return "";
+}
 
 }  // namespace dovetailor::detail
