@@ -82,6 +82,17 @@ struct StationResult {
   // tolerance.upper (the pin reading moves one for one with the width at the
   // base plane, pin_gauge.hpp).
   bool reading_in_tolerance = false;
+  // The regions behind the figures, for drawing (check_drawing.hpp), as
+  // rings in section coordinates (mm; outer rings counter-clockwise, holes
+  // clockwise): the material the simulation left, the finished part wanted
+  // here, material cut from the part deeper than the tolerance (the Gouge
+  // findings' result) and stock left outside it thicker than the tolerance
+  // (the StockLeft finding's region). A few hundred points per station,
+  // however long the program.
+  std::vector<Ring> section;
+  std::vector<Ring> target_part;
+  std::vector<Ring> gouged;
+  std::vector<Ring> leftover;
 
   bool operator==(const StationResult&) const = default;
 };

@@ -24,9 +24,9 @@ namespace dovetailor {
 enum class RegionFill {
   Part,       // the finished part
   Removed,    // material an operation removes (`index` picks its hatch)
-  Simulated,  // reserved: a simulated section drawn over the target
-  Gouge,      // reserved: material cut that the target keeps
-  Leftover,   // reserved: material left that the target removes
+  Simulated,  // a simulated section (check_drawing.hpp)
+  Gouge,      // material cut that the target keeps
+  Leftover,   // material left that the target removes
 };
 
 struct Region {
@@ -42,13 +42,14 @@ enum class OutlineStyle {
   Stock,      // the stock as supplied
   ToolFirst,  // a tool at an early pass
   ToolFinal,  // a tool at a finishing pass
+  Target,     // the finished part drawn over a simulated section
 };
 
 // A closed outline drawn without fill: the stock, or a tool's silhouette.
 struct Outline {
   OutlineStyle style = OutlineStyle::Stock;
   std::vector<Point2> points;
-  std::string label;  // legend text
+  std::string label;  // legend text; empty: no legend entry (a second ring of one thing)
   std::string tag;    // short text beside it on the drawing ("T2 p5"), may be empty
 
   bool operator==(const Outline&) const = default;

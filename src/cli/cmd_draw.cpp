@@ -1,15 +1,11 @@
 // dovetailor draw: the cross-section to scale, as SVG, PNG or PDF.
 
-#include <filesystem>
-
-#include <dovetailor/cairo_render.hpp>
 #include <dovetailor/drawing.hpp>
-#include <dovetailor/drawing_scene.hpp>
-#include <dovetailor/error.hpp>
 #include <dovetailor/job_reader.hpp>
 #include <dovetailor/planner.hpp>
 
 #include "commands.hpp"
+#include "drawing_output.hpp"
 #include "file_io.hpp"
 
 namespace dovetailor::cli {
@@ -24,19 +20,10 @@ struct DrawOptions {
 };
 
 void run_draw(const DrawOptions& o) {
-  const std::string ext = output_extension(o.output);
-  if (ext != ".svg" && ext != ".png" && ext != ".pdf")
-    throw InputError("give an output file ending in .svg, .png or .pdf", {o.output}, "-o");
+  require_drawing_format(o.output, "-o");
   const Job job = read_job(read_text_file(o.job_file), o.job_file);
-  const Drawing drawing = build_drawing(plan(job));
-  // The page: 270 mm wide (fits landscape A4 and Letter); a PNG keeps its pixels' aspect.
-  const double width = 270;
-  const double height = ext == ".png" ? width * o.height / o.width : 170;
-  const Scene scene = layout_drawing(drawing, width, height);
-  const std::string bytes = ext == ".svg"   ? drawing_svg(scene)
-                            : ext == ".png" ? drawing_png(scene, o.width, o.height)
-                                            : drawing_pdf(scene);
-  write_file_atomically(o.output, bytes, o.force);
+  write_file_atomically(
+      o.output, drawing_file_bytes(build_drawing(plan(job)), o.output, o.width, o.height), o.force);
 }
 
 }  // namespace

@@ -78,6 +78,8 @@ PaintStyle outline_style(OutlineStyle s) {
       return stroked(hex(0x1d4e9e), 0.4, {4, 1, 0.8, 1});
     case OutlineStyle::ToolFinal:
       return stroked(hex(0xa02c20), 0.55);
+    case OutlineStyle::Target:
+      return stroked(black, 0.35, {1.2, 0.8});
   }
   return {};
 }
@@ -228,8 +230,10 @@ Scene layout_drawing(const Drawing& drawing, double width, double height) {
 
   const bool side_legend = width >= 1.25 * height;
   const double legend_width = side_legend ? std::max(0.3 * width, 62.0) : width - 2 * margin;
+  const auto labelled = std::count_if(drawing.outlines.begin(), drawing.outlines.end(),
+                                      [](const Outline& o) { return !o.label.empty(); });
   const std::size_t entries =
-      drawing.regions.size() + drawing.outlines.size() + (drawing.pins.empty() ? 0 : 1);
+      drawing.regions.size() + static_cast<std::size_t>(labelled) + (drawing.pins.empty() ? 0 : 1);
   const double legend_height = side_legend ? 0 : 10 + 8.5 * static_cast<double>(entries);
   const double top = 24;
   const double area_w = (side_legend ? width - legend_width - margin : width) - 2 * margin;
@@ -299,11 +303,13 @@ Scene layout_drawing(const Drawing& drawing, double width, double height) {
   };
   for (const auto& r : drawing.regions)
     entry(r.label, [&](Point2 p) { scene.paths.push_back({{rect(p)}, true, region_style(r)}); });
-  for (const auto& o : drawing.outlines)
+  for (const auto& o : drawing.outlines) {
+    if (o.label.empty()) continue;
     entry(o.label, [&](Point2 p) {
       scene.paths.push_back(
           {{{{p.x, p.z + 3.5}, {p.x + 11, p.z + 3.5}}}, false, outline_style(o.style)});
     });
+  }
   if (!drawing.pins.empty())
     entry(drawing.pin_label, [&](Point2 p) {
       scene.paths.push_back({{circle({p.x + 5.5, p.z + 3.5}, 2.5)}, true, pin_style});

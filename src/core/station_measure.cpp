@@ -84,6 +84,11 @@ void measure_stations(const Job& job, const StationSimulator& sim, FindingSink& 
 
     StationResult r;
     r.y = y;
+    r.section = material.rings();
+    r.target_part = target.part.rings();
+    const SectionRegion gouged = subtract(target.forbidden, material);
+    if (gouged.area() > least_area) r.gouged = gouged.rings();
+    if (excess.area() > least_area) r.leftover = excess.rings();
     r.measured = measure_section(material, target.section, {.pin_diameter = pin});
     r.target_depth = target.section.depth;
     r.target_width_bottom = target.section.width_bottom();

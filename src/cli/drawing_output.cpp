@@ -1,0 +1,29 @@
+#include "drawing_output.hpp"
+
+#include <dovetailor/cairo_render.hpp>
+#include <dovetailor/drawing_scene.hpp>
+#include <dovetailor/error.hpp>
+
+#include "file_io.hpp"
+
+namespace dovetailor::cli {
+
+void require_drawing_format(const std::string& path, const std::string& option) {
+  const std::string ext = output_extension(path);
+  if (ext != ".svg" && ext != ".png" && ext != ".pdf")
+    throw InputError("give an output file ending in .svg, .png or .pdf", {path}, option);
+}
+
+std::string drawing_file_bytes(const Drawing& drawing, const std::string& path, int png_width,
+                               int png_height) {
+  const std::string ext = output_extension(path);
+  // A PNG keeps its pixels' aspect.
+  const double width = 270;
+  const double height = ext == ".png" ? width * png_height / png_width : 170;
+  const Scene scene = layout_drawing(drawing, width, height);
+  if (ext == ".svg") return drawing_svg(scene);
+  if (ext == ".png") return drawing_png(scene, png_width, png_height);
+  return drawing_pdf(scene);
+}
+
+}  // namespace dovetailor::cli
