@@ -8,6 +8,7 @@
 #include <dovetailor/error.hpp>
 
 #include "commands.hpp"
+#include "help_format.hpp"
 
 namespace dovetailor::cli {
 
@@ -16,6 +17,7 @@ int run_cli(int argc, const char* const* argv) {
       "dovetailor: plans, programs and checks dovetail slides cut on milling machines, with "
       "pin-measurement checkpoints.",
       "dovetailor"};
+  app.formatter(std::make_shared<HelpFormatter>());
   app.require_subcommand(1);
   app.set_version_flag("--version", "dovetailor 0.1.0");
   setup_pins(app);

@@ -151,7 +151,7 @@ void print_text(const PinsCase& c) {
   row("  good from", fmt::format("{} to {}", number(r.value + c.tolerance.lower, u),
                                  length(r.value + c.tolerance.upper, u)));
   const double h = contact_height(c.pin, s.angle);
-  row("Pin touches the flank at", fmt::format("{} above the base plane ({:.0f} % of the flank)",
+  row("Pin touches the flank at", fmt::format("{} above the base ({:.0f} % of the flank)",
                                               length(h, u), 100 * h / (s.depth - s.chamfer)));
   row("Pin constant 1 + cot(a/2)", fmt::format("{:.7f}", pin_constant(s.angle)));
   if (c.job && !female) {
