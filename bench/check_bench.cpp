@@ -24,7 +24,10 @@
 #include <fmt/format.h>
 
 #include <dovetailor/checker.hpp>
+#include <dovetailor/gcode_writer.hpp>
 #include <dovetailor/job_reader.hpp>
+#include <dovetailor/planner.hpp>
+#include <dovetailor/post.hpp>
 
 namespace {
 
@@ -32,7 +35,8 @@ using namespace dovetailor;
 
 class GeneratedProgram : public ProgramSource {
  public:
-  GeneratedProgram(long moves, bool repeat) : moves_(moves), repeat_(repeat) {}
+  // kind 1 repeat, 0 distinct, 2 tapered (distinct, each pass slanted).
+  GeneratedProgram(long moves, int kind) : moves_(moves), repeat_(kind == 1), taper_(kind == 2) {}
 
   bool next_line(std::string& line) override {
     if (!header_.empty()) {
@@ -65,8 +69,12 @@ class GeneratedProgram : public ProgramSource {
       return fmt::format("G0 X{:.4f} Y-20 Z5", x_);
     }
     if (step == 1) return "G1 Z-6 F600";
-    if (step == 2) return "G1 Y180";
-    if (step < 3 + 36) return fmt::format("G1 Y{}", 180 - 5 * (step - 2));
+    if (step == 2) return taper_ ? fmt::format("G1 X{:.4f} Y180", x_ + 0.5) : "G1 Y180";
+    if (step < 3 + 36) {
+      const int y = 180 - 5 * (step - 2);
+      return taper_ ? fmt::format("G1 X{:.4f} Y{}", x_ + 0.5 * (y + 20) / 200.0, y)
+                    : fmt::format("G1 Y{}", y);
+    }
     if (step == 3 + 36) return "G0 Z5";
     // Short moves outside the front end.
     return fmt::format("G1 X{:.4f} Y{:.1f}", x_ + (step % 2 ? 0.2 : 0), step % 2 ? -20.5 : -20);
@@ -75,6 +83,7 @@ class GeneratedProgram : public ProgramSource {
   static constexpr long cycle = 60;
   long moves_;
   bool repeat_;
+  bool taper_;
   std::vector<std::string> header_{"G21 G90 G17", "T3 M6", "S3000 M3"};
   long written_ = 0;
   long in_cycle_ = 0;
@@ -84,21 +93,25 @@ class GeneratedProgram : public ProgramSource {
   std::string name_ = "generated.ngc";
 };
 
-Job sample_job() {
-  const std::string path = std::string(DOVETAILOR_SOURCE_DIR) + "/samples/stop-block-male.toml";
+std::string source_file(const std::string& name) {
+  const std::string path = std::string(DOVETAILOR_SOURCE_DIR) + "/" + name;
   std::ifstream in(path, std::ios::binary);
   std::stringstream text;
   text << in.rdbuf();
-  return read_job(text.str(), path);
+  return text.str();
+}
+
+Job sample_job(const std::string& name = "stop-block-male") {
+  return read_job(source_file("samples/" + name + ".toml"), name + ".toml");
 }
 
 void check_program(benchmark::State& state) {
   static const Job job = sample_job();
   const long moves = state.range(0);
-  const bool repeat = state.range(1) != 0;
+  const int kind = static_cast<int>(state.range(1));
   long findings = 0;
   for (auto _ : state) {
-    GeneratedProgram program(moves, repeat);
+    GeneratedProgram program(moves, kind);
     const CheckReport report = check(program, job, {.stations = 20});
     findings = static_cast<long>(report.findings.size());
     benchmark::DoNotOptimize(report.stations.size());
@@ -110,11 +123,38 @@ void check_program(benchmark::State& state) {
       benchmark::Counter(static_cast<double>(moves), benchmark::Counter::kIsIterationInvariantRate);
   state.counters["peak_rss_MiB"] = static_cast<double>(usage.ru_maxrss) / 1024.0;
   state.counters["findings"] = static_cast<double>(findings);
-  state.SetLabel(repeat ? "repeat" : "distinct");
+  state.SetLabel(kind == 1 ? "repeat" : kind == 0 ? "distinct" : "tapered");
 }
 
+// The planner's own program for a sample (rs274ngc-full post), checked
+// whole: every cutting move takes new material, the cost a real program
+// pays. Moves per second over the program's motion events.
+const char* const planned_samples[] = {"stop-block-male", "fixture-slide-male",
+                                       "fixture-slide-female", "height-stop-half-female"};
+
+void check_planned_program(benchmark::State& state) {
+  const std::string name = planned_samples[state.range(0)];
+  const Job job = sample_job(name);
+  const Post post = read_post(source_file("post/rs274ngc-full.toml"), "rs274ngc-full.toml");
+  const std::string text = write_program(plan(job), post, {.date = "2000-01-01"});
+  long moves = 0;
+  for (auto _ : state) {
+    StringProgramSource program(text, name + ".ngc");
+    const CheckReport report = check(program, job, {.stations = 20});
+    moves = report.moves;
+    benchmark::DoNotOptimize(report.stations.size());
+  }
+  state.SetItemsProcessed(state.iterations() * moves);
+  state.counters["moves"] = static_cast<double>(moves);
+  state.counters["moves_per_s"] =
+      benchmark::Counter(static_cast<double>(moves), benchmark::Counter::kIsIterationInvariantRate);
+  state.SetLabel(name);
+}
+
+BENCHMARK(check_planned_program)->DenseRange(0, 3)->Unit(benchmark::kMillisecond);
+
 BENCHMARK(check_program)
-    ->ArgsProduct({{10000, 100000, 1000000}, {1, 0}})
+    ->ArgsProduct({{10000, 100000, 1000000}, {1, 0, 2}})
     ->Unit(benchmark::kMillisecond)
     ->Iterations(1);
 

@@ -249,6 +249,76 @@ TEST(checker, stations_sit_inside_the_ends_and_evenly_between) {
   testing::expect_input_error([&] { check(source, job, {.stations = 0}); }, {"stations"});
 }
 
+// A slanted pass of the 12 mm end mill, 3 mm deep, from (x0, -20) to
+// (x1, 180), written as `pieces` straight moves end to end, with the joint
+// between the first two moves `kink` mm deeper than the line.
+std::string slanted_pass(double x0, double x1, int pieces, double kink = 0) {
+  std::string text = "G21 G90 G17\nT3 M6\nS2500 M3\n";
+  text += fmt::format("G0 X{:.5f} Y-20 Z5\nG1 Z-3 F500\n", x0);
+  for (int i = 1; i <= pieces; ++i) {
+    const double t = static_cast<double>(i) / pieces;
+    text += fmt::format("G1 X{:.5f} Y{:.5f} Z{:.5f}\n", x0 + t * (x1 - x0), -20 + 200 * t,
+                        i == 1 ? -3 - kink : -3.0);
+  }
+  return text + "G0 Z5\nM30\n";
+}
+
+double material_area(const StationResult& s) { return SectionRegion::from_rings(s.section).area(); }
+
+TEST(checker, a_pass_split_into_moves_on_one_line_cuts_what_the_whole_line_cuts) {
+  // The union of the sweeps of moves end to end on one line is the sweep of
+  // the line (Minkowski sum of a convex body with a segment; convex
+  // geometry, no source needed): the split pass leaves the same section at
+  // every station, to the grid. A joint 0.2 mm below the line is a
+  // different path. At y = 1 the first move's end (at y = 0, 0.2 mm deep
+  // below the pass; its chord at 1 mm off the axis is 2 sqrt(36 - 1) wide)
+  // and the second move (0.19 mm below it there, 12 mm wide) cut
+  // 0.2 * 2 sqrt(35) + 0.19 * (12 - 2 sqrt(35)) = 2.398 mm^2 more.
+  const Job job = bad_program_job();
+  const CheckReport whole = check_text(slanted_pass(30, 32, 1), job);
+  const CheckReport split = check_text(slanted_pass(30, 32, 10), job);
+  const CheckReport kinked = check_text(slanted_pass(30, 32, 10, 0.2), job);
+  ASSERT_EQ(whole.stations.size(), split.stations.size());
+  for (std::size_t i = 0; i < whole.stations.size(); ++i) {
+    SCOPED_TRACE(i);
+    EXPECT_NEAR(material_area(split.stations[i]), material_area(whole.stations[i]), 1e-6);
+  }
+  const double chord = 2 * std::sqrt(35.0);
+  EXPECT_NEAR(material_area(whole.stations[0]) - material_area(kinked.stations[0]),
+              0.2 * chord + 0.19 * (12 - chord), 0.005);
+  // The first station (y = 1) sits on the first move, 20 mm long from
+  // y = -20: its sweep is 12 mm wide at z = -3, taken from the 25 mm
+  // shoulder (x 20 to 45): 3 * 12 = 36 mm^2 less than the stock's 2250.
+  EXPECT_NEAR(material_area(whole.stations.front()), 90 * 25 - 36, 0.01);
+}
+
+TEST(checker, a_slanted_pass_cuts_the_ellipse_width_of_its_end_mill) {
+  // A plane across a cylinder of radius R whose axis runs at slope s to the
+  // plane's normal cuts an ellipse with semi-axes R and R sqrt(1 + s^2)
+  // (plane section of a circular cylinder, analytic geometry). The end mill
+  // sweeps that cylinder's side as it moves at slope s = 14/200 = 0.07 in x
+  // per y, so a flat 3 mm deep cut 12 sqrt(1 + s^2) wide = 36.088 mm^2 is
+  // taken from the shoulder at every station the pass crosses (all five,
+  // each more than R from its ends).
+  const Job job = bad_program_job();
+  const CheckReport r = check_text(slanted_pass(26, 40, 1), job);
+  for (const StationResult& st : r.stations)
+    EXPECT_NEAR(90 * 25 - material_area(st), 36 * std::sqrt(1 + 0.07 * 0.07), 1e-3) << st.y;
+}
+
+TEST(checker, a_gouge_by_a_split_slanted_pass_names_the_move_at_each_station) {
+  // The pass runs over the middle of the tongue; its moves start on line 6,
+  // each 20 mm of y, so the stations at y = 1, 40.5, 80, 119.5 and 159 lie
+  // on the moves of lines 7, 9, 10 (y = 80 is its end, where line 11
+  // starts: the first move to reach a station names it), 12 and 14.
+  const Job job = bad_program_job();
+  const CheckReport r = check_text(slanted_pass(-2, 2, 10), job);
+  std::vector<int> lines;
+  for (const Finding& f : r.findings)
+    if (f.kind == FindingKind::Gouge) lines.push_back(f.line);
+  EXPECT_EQ(lines, (std::vector<int>{7, 9, 10, 12, 14})) << describe(r);
+}
+
 TEST(checker, reader_errors_name_the_program_and_line) {
   const Job job = sample("stop-block-male.toml");
   StringProgramSource source("G21\nG1 X1 Q\n", "broken.ngc");

@@ -88,6 +88,9 @@ StationSweep sweep_from_parts(const std::vector<SweptPart>& body,
                               const std::vector<SweptPart>& column);
 StationSweep sweep_silhouettes(const SimTool& tool, double x, double z);
 
+// The same sweep moved by (dx, dz) grid units: exact on the grid.
+StationSweep shifted(const StationSweep& sweep, std::int64_t dx, std::int64_t dz);
+
 // One station's material; shared between stations while they hold the same.
 struct Material {
   std::uint64_t id = 0;

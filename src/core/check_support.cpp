@@ -146,4 +146,32 @@ StationSweep sweep_silhouettes(const SimTool& tool, double x, double z) {
   return sweep;
 }
 
+namespace {
+
+SectionRegion shifted(const SectionRegion& region, std::int64_t dx, std::int64_t dz) {
+  std::vector<std::vector<GridPoint>> rings = region.grid_rings();
+  for (auto& ring : rings)
+    for (GridPoint& p : ring) {
+      p.x += dx;
+      p.z += dz;
+    }
+  return SectionRegion::from_grid_rings(std::move(rings));
+}
+
+}  // namespace
+
+StationSweep shifted(const StationSweep& sweep, std::int64_t dx, std::int64_t dz) {
+  StationSweep out;
+  out.flutes = shifted(sweep.flutes, dx, dz);
+  for (const auto& [part, region] : sweep.others)
+    out.others.emplace_back(part, shifted(region, dx, dz));
+  out.column = shifted(sweep.column, dx, dz);
+  if (sweep.bounds) {
+    const double ox = from_grid(dx), oz = from_grid(dz);
+    out.bounds = Bounds2{sweep.bounds->x_min + ox, sweep.bounds->z_min + oz,
+                         sweep.bounds->x_max + ox, sweep.bounds->z_max + oz};
+  }
+  return out;
+}
+
 }  // namespace dovetailor::detail

@@ -9,6 +9,19 @@ namespace {
 
 constexpr double still = 1e-9;
 constexpr std::size_t memo_capacity = 4096;
+constexpr std::size_t shape_capacity = 256;
+// Moves are gathered into one straight line when every joint lies this
+// close to it (0.1 um, the sweep's own chord tolerance), up to this many.
+constexpr double straight_within = 1e-4;
+constexpr std::size_t most_joints = 64;
+
+double distance_to_line(const Point3& p, const Point3& a, const Point3& b) {
+  const double ux = b.x - a.x, uy = b.y - a.y, uz = b.z - a.z;
+  const double vx = p.x - a.x, vy = p.y - a.y, vz = p.z - a.z;
+  const double cx = uy * vz - uz * vy, cy = uz * vx - ux * vz, cz = ux * vy - uy * vx;
+  const double len = std::sqrt(ux * ux + uy * uy + uz * uz);
+  return std::sqrt(cx * cx + cy * cy + cz * cz) / len;
+}
 
 // The box in a station plane that the body can reach while its tip stays in
 // [x_lo, x_hi] x [z_lo, z_hi]: the cheap test that spares sweeping moves
@@ -32,6 +45,13 @@ std::size_t StationSimulator::MemoHash::operator()(const MemoKey& k) const {
   mix(static_cast<std::uint64_t>(k.x));
   mix(static_cast<std::uint64_t>(k.z));
   mix(static_cast<std::uint64_t>(k.flags));
+  return h;
+}
+
+std::size_t StationSimulator::ShapeHash::operator()(const ShapeKey& k) const {
+  std::size_t h = std::hash<std::int64_t>()(k.sx);
+  h ^= std::hash<std::int64_t>()(k.sz) + 0x9e3779b97f4a7c15ULL + (h << 6) + (h >> 2);
+  h ^= static_cast<std::size_t>(k.tool) + 0x9e3779b97f4a7c15ULL + (h << 6) + (h >> 2);
   return h;
 }
 
@@ -92,22 +112,110 @@ void StationSimulator::line(const SimTool& tool, const Point3& from, const Point
     extend_run(from, to, facts.line);
     return;
   }
+  if (!along_y && line_run_open_ && continues_line(tool, from, to, facts)) {
+    extend_line_run(from, to, facts.line);
+    return;
+  }
   flush();
   if (along_y) {
     start_run(tool, from, to, facts);
     return;
   }
+  if (std::abs(dy) > still) {
+    start_line_run(tool, from, to, facts);
+    return;
+  }
+  sweep_straight(tool, from, to, facts, nullptr);
+}
+
+bool StationSimulator::continues_line(const SimTool& tool, const Point3& from, const Point3& to,
+                                      const MoveFacts& facts) const {
+  const LineRun& r = line_run_;
+  if (r.tool != &tool || r.facts.kind != facts.kind || r.facts.spindle_on != facts.spindle_on ||
+      r.joints.size() >= most_joints)
+    return false;
+  if (std::abs(r.to.x - from.x) > still || std::abs(r.to.y - from.y) > still ||
+      std::abs(r.to.z - from.z) > still)
+    return false;
+  const double dot = (r.to.x - r.from.x) * (to.x - from.x) + (r.to.y - r.from.y) * (to.y - from.y) +
+                     (r.to.z - r.from.z) * (to.z - from.z);
+  if (dot <= 0) return false;
+  if (distance_to_line(r.to, r.from, to) > straight_within) return false;
+  for (const Point3& j : r.joints)
+    if (distance_to_line(j, r.from, to) > straight_within) return false;
+  return true;
+}
+
+void StationSimulator::start_line_run(const SimTool& tool, const Point3& from, const Point3& to,
+                                      const MoveFacts& facts) {
+  line_run_open_ = true;
+  line_run_.tool = &tool;
+  line_run_.facts = facts;
+  line_run_.from = from;
+  line_run_.to = from;
+  line_run_.joints.clear();
+  line_run_.first_line = facts.line;
+  line_run_.last_line = 0;
+  line_run_.crossing_line.assign(ys_.size(), 0);
+  extend_line_run(from, to, facts.line);
+}
+
+void StationSimulator::extend_line_run(const Point3& from, const Point3& to, int line) {
+  LineRun& r = line_run_;
+  if (r.last_line != 0) r.joints.push_back(from);
+  const auto [first, last] = stations_near(std::min(from.y, to.y), std::max(from.y, to.y), 0);
+  for (std::size_t s = first; s < last; ++s)
+    if (r.crossing_line[s] == 0) r.crossing_line[s] = line;
+  r.to = to;
+  r.last_line = line;
+}
+
+const StationSweep& StationSimulator::crossing_shape(const SimTool& tool, double sx, double sz) {
+  const ShapeKey key{tool.index, std::llround(sx * 1e9), std::llround(sz * 1e9)};
+  auto found = shapes_.find(key);
+  if (found != shapes_.end()) return found->second;
+  if (shapes_.size() >= shape_capacity) shapes_.clear();
+  // A line through the tip at the origin, crossing the plane y = 0 well
+  // inside both ends.
+  const double half = 2 * tool.body.max_radius() + 1;
+  const Point3 a{-sx * half, -half, -sz * half}, b{sx * half, half, sz * half};
+  return shapes_
+      .emplace(key,
+               sweep_from_parts(sweep_line(tool.body, a, b, 0), sweep_line(tool.column, a, b, 0)))
+      .first->second;
+}
+
+void StationSimulator::sweep_straight(const SimTool& tool, const Point3& from, const Point3& to,
+                                      const MoveFacts& facts,
+                                      const std::vector<int>* crossing_line) {
+  const double dx = to.x - from.x, dy = to.y - from.y, dz = to.z - from.z;
   const double reach = tool.body.max_radius();
   const auto [first, last] = stations_near(std::min(from.y, to.y), std::max(from.y, to.y), reach);
   MoveFacts f = facts;
   f.tip_z = std::max(from.z, to.z);
+  f.plunging = dz < -still;
   const Bounds2 box = reach_box(tool.body, std::min(from.x, to.x), std::max(from.x, to.x),
                                 std::min(from.z, to.z), std::max(from.z, to.z));
   for (std::size_t s = first; s < last; ++s) {
     if (clear_of(material_[s], box)) continue;
-    const auto body = sweep_line(tool.body, from, to, ys_[s]);
+    const double y = ys_[s];
+    if (crossing_line) {
+      const int crossing = (*crossing_line)[s];
+      f.line = crossing != 0                               ? crossing
+               : std::abs(y - from.y) < std::abs(y - to.y) ? line_run_.first_line
+                                                           : line_run_.last_line;
+    }
+    const bool through = std::abs(dy) > still && (y - from.y) * (to.y - y) > 0 &&
+                         std::min(std::abs(y - from.y), std::abs(y - to.y)) >= reach;
+    if (through) {
+      const StationSweep& shape = crossing_shape(tool, dx / dy, dz / dy);
+      const double t = (y - from.y) / dy;
+      apply_general(s, shifted(shape, to_grid(from.x + t * dx), to_grid(from.z + t * dz)), f, tool);
+      continue;
+    }
+    const auto body = sweep_line(tool.body, from, to, y);
     if (body.empty()) continue;
-    apply_general(s, sweep_from_parts(body, sweep_line(tool.column, from, to, ys_[s])), f, tool);
+    apply_general(s, sweep_from_parts(body, sweep_line(tool.column, from, to, y)), f, tool);
   }
 }
 
@@ -163,6 +271,11 @@ void StationSimulator::extend_run(const Point3& from, const Point3& to, int line
 }
 
 void StationSimulator::flush() {
+  if (line_run_open_) {
+    line_run_open_ = false;
+    sweep_straight(*line_run_.tool, line_run_.from, line_run_.to, line_run_.facts,
+                   &line_run_.crossing_line);
+  }
   if (!run_open_) return;
   run_open_ = false;
   const SimTool& tool = *run_.tool;

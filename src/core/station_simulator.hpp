@@ -17,8 +17,11 @@ class StationSimulator {
   StationSimulator(std::vector<double> ys, std::vector<StationTarget> targets,
                    const SectionRegion& stock, FindingSink& sink);
 
-  // One straight move of the tool tip. Moves along Y at one X and Z are
-  // gathered into a run and simulated when the run ends (flush()).
+  // One straight move of the tool tip. Moves along Y at one X and Z, and
+  // other moves that continue one straight line (every joint within
+  // `straight_within` of it), are gathered into a run and simulated when the
+  // run ends (flush()): the union of their sweeps is the sweep of the whole
+  // line.
   void line(const SimTool& tool, const Point3& from, const Point3& to, const MoveFacts& facts);
   // One circular move.
   void arc(const SimTool& tool, const ArcMove& arc, const MoveFacts& facts);
@@ -39,6 +42,32 @@ class StationSimulator {
     std::vector<int> crossing_line;  // per station, 0 until a move crosses it
   };
 
+  // Straight moves not along Y (tapered passes, ramps) on one line.
+  struct LineRun {
+    const SimTool* tool = nullptr;
+    MoveFacts facts;
+    Point3 from, to;
+    std::vector<Point3> joints;      // where one move of the run meets the next
+    std::vector<int> crossing_line;  // per station, 0 until a move crosses it
+    int first_line = 0, last_line = 0;
+  };
+
+  // The area a straight move sweeps in a plane it crosses at least the
+  // body's largest radius inside both of its ends depends only on the tool
+  // and the move's direction: it is this shape moved to where the tip
+  // crosses the plane. Kept per (tool, dx/dy, dz/dy) so that the stations a
+  // long slanted pass crosses, and every later pass of the same slope, share
+  // one sweep.
+  struct ShapeKey {
+    int tool = 0;
+    std::int64_t sx = 0, sz = 0;  // slopes in units of 1e-9
+    bool operator==(const ShapeKey&) const = default;
+  };
+  struct ShapeHash {
+    std::size_t operator()(const ShapeKey& k) const;
+  };
+  const StationSweep& crossing_shape(const SimTool& tool, double sx, double sz);
+
   struct MemoKey {
     std::uint64_t material = 0;
     int target = 0;
@@ -55,6 +84,13 @@ class StationSimulator {
   std::pair<std::size_t, std::size_t> stations_near(double low, double high, double reach) const;
   void start_run(const SimTool& tool, const Point3& from, const Point3& to, const MoveFacts& facts);
   void extend_run(const Point3& from, const Point3& to, int line);
+  bool continues_line(const SimTool& tool, const Point3& from, const Point3& to,
+                      const MoveFacts& facts) const;
+  void start_line_run(const SimTool& tool, const Point3& from, const Point3& to,
+                      const MoveFacts& facts);
+  void extend_line_run(const Point3& from, const Point3& to, int line);
+  void sweep_straight(const SimTool& tool, const Point3& from, const Point3& to,
+                      const MoveFacts& facts, const std::vector<int>* crossing_line);
   void apply(std::size_t station, const Outcome& outcome, int line);
   void apply_general(std::size_t station, const StationSweep& sweep, const MoveFacts& facts,
                      const SimTool& tool);
@@ -67,6 +103,9 @@ class StationSimulator {
   std::uint64_t next_id_ = 1;
   bool run_open_ = false;
   Run run_;
+  bool line_run_open_ = false;
+  LineRun line_run_;
+  std::unordered_map<ShapeKey, StationSweep, ShapeHash> shapes_;
   std::unordered_map<MemoKey, Outcome, MemoHash> memo_;
 };
 
