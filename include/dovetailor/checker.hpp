@@ -26,6 +26,12 @@ namespace dovetailor {
 //    spindle state are swept as one move (their union is the same area);
 //    findings then name the line of the move that crosses the station, or the
 //    run's nearest end move when none crosses it.
+//  - Moves that continue one straight line (each joint within 0.1 um of it)
+//    are swept as one line too. A straight move that crosses a station more
+//    than the body's largest radius inside both its ends sweeps there a
+//    shape that depends only on the tool and the move's slope (dx/dy,
+//    dz/dy, rounded to 1e-6: the body then lies within radius * 5e-7 of its
+//    place); it is swept once and moved to each station it crosses.
 //  - Stations that hold the same material share one evaluation of a move
 //    (stock is shared between them until they differ), and a small cache
 //    remembers the result of (material, move shape) pairs, so repeated passes

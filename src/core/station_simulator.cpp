@@ -14,6 +14,11 @@ constexpr std::size_t shape_capacity = 256;
 // close to it (0.1 um, the sweep's own chord tolerance), up to this many.
 constexpr double straight_within = 1e-4;
 constexpr std::size_t most_joints = 64;
+// Slopes (dx/dy, dz/dy) are rounded to this step for the shared crossing
+// shapes: a body of radius R then lies within R * step / 2 of its true
+// place (20 nm for a 40 mm holder), and the shape does not depend on which
+// move came first.
+constexpr double slope_step = 1e-6;
 
 double distance_to_line(const Point3& p, const Point3& a, const Point3& b) {
   const double ux = b.x - a.x, uy = b.y - a.y, uz = b.z - a.z;
@@ -171,14 +176,16 @@ void StationSimulator::extend_line_run(const Point3& from, const Point3& to, int
 }
 
 const StationSweep& StationSimulator::crossing_shape(const SimTool& tool, double sx, double sz) {
-  const ShapeKey key{tool.index, std::llround(sx * 1e9), std::llround(sz * 1e9)};
+  const ShapeKey key{tool.index, std::llround(sx / slope_step), std::llround(sz / slope_step)};
   auto found = shapes_.find(key);
   if (found != shapes_.end()) return found->second;
   if (shapes_.size() >= shape_capacity) shapes_.clear();
-  // A line through the tip at the origin, crossing the plane y = 0 well
-  // inside both ends.
+  // A line at the key's slope through the tip at the origin, crossing the
+  // plane y = 0 well inside both ends.
   const double half = 2 * tool.body.max_radius() + 1;
-  const Point3 a{-sx * half, -half, -sz * half}, b{sx * half, half, sz * half};
+  const double kx = static_cast<double>(key.sx) * slope_step;
+  const double kz = static_cast<double>(key.sz) * slope_step;
+  const Point3 a{-kx * half, -half, -kz * half}, b{kx * half, half, kz * half};
   return shapes_
       .emplace(key,
                sweep_from_parts(sweep_line(tool.body, a, b, 0), sweep_line(tool.column, a, b, 0)))

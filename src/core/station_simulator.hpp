@@ -60,7 +60,7 @@ class StationSimulator {
   // one sweep.
   struct ShapeKey {
     int tool = 0;
-    std::int64_t sx = 0, sz = 0;  // slopes in units of 1e-9
+    std::int64_t sx = 0, sz = 0;  // slopes in steps of slope_step
     bool operator==(const ShapeKey&) const = default;
   };
   struct ShapeHash {
