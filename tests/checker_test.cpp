@@ -14,6 +14,7 @@
 #include <dovetailor/planner.hpp>
 
 #include "random_jobs.hpp"
+#include "tapered_flank.hpp"
 #include "test_support.hpp"
 
 namespace dovetailor {
@@ -56,29 +57,14 @@ double round_trip_tolerance(Units units) {
   return units == Units::Inch ? to_mm(0.00005, Units::Inch) : 0.001;
 }
 
-// A pass along a tapered gib flank runs at a slope s to Y, so the cutter's
-// section across the slide is wider than its silhouette: the flank comes out
-// R (sqrt(1 + s^2) - 1) further out than the pass's nominal position
-// (geometry of a circle of radius R swept along a line at slope s). The
-// planner ignores it; the simulation does not. One flank moves: the reading
-// grows (female) or shrinks (male) by that much.
-double diagonal_sweep_shift(const Job& job) {
-  double slope = 0;
-  for (Side side : {Side::Left, Side::Right})
-    slope = std::max(slope, std::abs(flank_taper_slope(job.dovetail, side)));
-  const Tool* cutter = first_tool(job, ToolKind::Dovetail);
-  const double excess = cutter->diameter / 2 * (std::sqrt(1 + slope * slope) - 1);
-  return job.dovetail.type == DovetailType::Female ? excess : -excess;
-}
-
 void expect_round_trip(const Job& job) {
   const Plan p = plan(job);
   const CheckReport r = check_text(program_from_plan(p), job);
   EXPECT_TRUE(r.findings.empty()) << describe(r);
   ASSERT_FALSE(r.stations.empty());
-  const double shift = diagonal_sweep_shift(job);
   for (const StationResult& s : r.stations) {
     ASSERT_TRUE(s.measured.reading) << describe(r);
+    const double shift = testing::tapered_flank_shift(job, s.target_reading.pin_diameter);
     EXPECT_NEAR(s.measured.reading->value, s.target_reading.value + shift,
                 round_trip_tolerance(job.units))
         << "at y = " << s.y << "\n"
