@@ -2,12 +2,13 @@
 
 #include <optional>
 #include <string>
+#include <string_view>
 #include <vector>
 
 #include <dovetailor/dovetail_section.hpp>
 #include <dovetailor/job.hpp>
-#include <dovetailor/point.hpp>
 #include <dovetailor/pin_gauge.hpp>
+#include <dovetailor/point.hpp>
 
 namespace dovetailor {
 
@@ -15,7 +16,6 @@ namespace dovetailor {
 // every writer (text plan, JSON, G-code, pass sheet, drawing) and by the
 // checker's round-trip tests. Lengths in mm, work coordinates (see job.hpp),
 // feeds in mm/min, speeds in rev/min.
-
 
 enum class MoveKind {
   Rapid,  // G0: only at or above the safe height, or outside the stock
@@ -37,6 +37,10 @@ enum class PassRole {
   Finish,      // lands the flank on size
   Spring,      // same position again, no added stock: takes out the spring of the cutter
 };
+
+// The role in one word, as the JSON plan and the program comments give it:
+// "rough", "semi-finish", "finish", "spring".
+std::string_view pass_role_word(PassRole role);
 
 // One cut along the slide (Y). `x` is the tool axis at y = 0 (for a tapered
 // gib flank the axis runs at the taper: x_at(y) = x + taper_slope * y); `z` is

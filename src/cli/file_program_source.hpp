@@ -14,7 +14,7 @@ namespace dovetailor::cli {
 // refuses it as too long), so a file without line ends is not read whole.
 class FileProgramSource : public ProgramSource {
  public:
-  static constexpr std::size_t default_line_cap = 4 * 4096;
+  static constexpr std::size_t default_line_cap = std::size_t{4} * 4096;
 
   // Throws InputError naming the file when it cannot be opened.
   explicit FileProgramSource(const std::string& path, std::size_t line_cap = default_line_cap);

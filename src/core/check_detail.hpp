@@ -126,6 +126,10 @@ double thickness_of(const SectionRegion& region);
 
 bool overlaps(const Bounds2& a, const Bounds2& b);
 
+// A disc as a 32-sided polygon inside the circle (for allowances at corners,
+// where a chord short of the arc errs toward a finding).
+SectionRegion disc(Point2 centre, double radius);
+
 }  // namespace dovetailor::detail
 
 namespace dovetailor::detail {

@@ -30,6 +30,16 @@ std::vector<FindingCount> FindingSink::counts() const {
   return result;
 }
 
+SectionRegion disc(Point2 centre, double radius) {
+  Ring ring;
+  constexpr int sides = 32;
+  for (int i = 0; i < sides; ++i) {
+    const double t = 2 * pi * i / sides;
+    ring.push_back({centre.x + radius * std::cos(t), centre.z + radius * std::sin(t)});
+  }
+  return SectionRegion::from_ring(ring);
+}
+
 bool overlaps(const Bounds2& a, const Bounds2& b) {
   return a.x_min < b.x_max && b.x_min < a.x_max && a.z_min < b.z_max && b.z_min < a.z_max;
 }

@@ -58,16 +58,6 @@ PlannerRules planner_rules(const Job& job) {
   return rules;
 }
 
-SectionRegion disc(Point2 centre, double radius) {
-  Ring ring;
-  constexpr int sides = 32;
-  for (int i = 0; i < sides; ++i) {
-    const double t = 2 * pi * i / sides;
-    ring.push_back({centre.x + radius * std::cos(t), centre.z + radius * std::sin(t)});
-  }
-  return SectionRegion::from_ring(ring);
-}
-
 StationTarget target_at(const Job& job, double y, int id, double allowance) {
   StationTarget t;
   t.id = id;
@@ -79,7 +69,7 @@ StationTarget target_at(const Job& job, double y, int id, double allowance) {
   // A chamfer on the top edges may be cut: no gouge there.
   if (t.section.chamfer > 0)
     for (const Flank* f : {&t.section.left, &t.section.right})
-      t.forbidden = subtract(t.forbidden, disc(f->top, 2 * t.section.chamfer + allowance));
+      t.forbidden = subtract(t.forbidden, detail::disc(f->top, 2 * t.section.chamfer + allowance));
   return t;
 }
 
@@ -306,6 +296,7 @@ std::vector<double> station_positions(const Job& job, int stations) {
   if (hi < lo) lo = hi = (start + end) / 2;
   std::vector<double> ys;
   if (stations == 1) return {(lo + hi) / 2};
+  ys.reserve(static_cast<std::size_t>(stations));
   for (int i = 0; i < stations; ++i) ys.push_back(lo + (hi - lo) * i / (stations - 1));
   return ys;
 }

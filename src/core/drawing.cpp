@@ -1,54 +1,15 @@
 #include <algorithm>
 #include <cmath>
 
-#include <clipper.hpp>
 #include <fmt/format.h>
 
 #include <dovetailor/drawing.hpp>
+#include <dovetailor/length_text.hpp>
 #include <dovetailor/pin_gauge.hpp>
+#include <dovetailor/section_region.hpp>
 
 namespace dovetailor {
 namespace {
-
-namespace cl = ClipperLib;
-
-// Section booleans on integers: 10 000 units per mm (0.1 um), exact and robust.
-constexpr double clip_scale = 1e4;
-
-cl::Path to_path(const std::vector<Point2>& ring) {
-  cl::Path path;
-  for (const auto& p : ring)
-    path.emplace_back(static_cast<cl::cInt>(std::llround(p.x * clip_scale)),
-                      static_cast<cl::cInt>(std::llround(p.z * clip_scale)));
-  return path;
-}
-
-std::vector<std::vector<Point2>> to_rings(const cl::Paths& paths) {
-  std::vector<std::vector<Point2>> rings;
-  for (const auto& path : paths) {
-    std::vector<Point2> ring;
-    for (const auto& p : path)
-      ring.push_back(
-          {static_cast<double>(p.X) / clip_scale, static_cast<double>(p.Y) / clip_scale});
-    if (ring.size() >= 3) rings.push_back(ring);
-  }
-  return rings;
-}
-
-cl::Paths boolean(cl::ClipType type, const cl::Paths& a, const cl::Paths& b) {
-  cl::Clipper clipper;
-  clipper.AddPaths(a, cl::ptSubject, true);
-  clipper.AddPaths(b, cl::ptClip, true);
-  cl::Paths out;
-  clipper.Execute(type, out, cl::pftNonZero, cl::pftNonZero);
-  return out;
-}
-
-std::string show(double mm, Units u) {
-  std::string s = fmt::format("{:.{}f}", from_mm(mm, u), length_decimals(u));
-  if (s.starts_with("-") && s.find_first_not_of("-0.") == std::string::npos) s.erase(0, 1);
-  return s + " " + std::string(unit_symbol(u));
-}
 
 // The direction (degrees from +X) from a flank's base corner along the base
 // plane into the void: toward the middle on a female, away from it on a male.
@@ -98,25 +59,24 @@ Drawing build_drawing(const Plan& plan) {
   d.stock_min = {left, -height};
   d.stock_max = {right, 0};
   const std::vector<Point2> stock_ring = {{left, -height}, {right, -height}, {right, 0}, {left, 0}};
-  const cl::Paths stock{to_path(stock_ring)};
+  const SectionRegion stock = SectionRegion::from_ring(stock_ring);
 
   // What each operation removes: the sweep of its passes, inside the stock,
   // less what the operations before it removed.
   const double above = 0.5 * t.depth;  // tools drawn up past the top face
-  cl::Paths removed_before;
+  SectionRegion removed_before;
   int index = 0;
   for (const auto& op : plan.operations) {
     const Tool* tool = find_tool(job, op.tool);
     if (!tool) continue;
-    cl::Paths sweep;
-    for (const auto& p : op.passes)
-      sweep.push_back(to_path(tool_silhouette(*tool, p.x, p.z, above)));
-    sweep = boolean(cl::ctUnion, sweep, {});
-    const cl::Paths inside = boolean(cl::ctIntersection, sweep, stock);
-    const cl::Paths fresh = boolean(cl::ctDifference, inside, removed_before);
-    removed_before = boolean(cl::ctUnion, removed_before, inside);
+    std::vector<Ring> silhouettes;
+    silhouettes.reserve(op.passes.size());
+    for (const auto& p : op.passes) silhouettes.push_back(tool_silhouette(*tool, p.x, p.z, above));
+    const SectionRegion inside = intersect(SectionRegion::union_of(silhouettes), stock);
+    const SectionRegion fresh = subtract(inside, removed_before);
+    removed_before = unite(removed_before, inside);
     d.regions.push_back(
-        {RegionFill::Removed, index++, to_rings(fresh),
+        {RegionFill::Removed, index++, fresh.rings(),
          fmt::format("Removed by operation {}: {} (T{})", index, op.title, op.tool)});
   }
   d.regions.push_back(
@@ -153,7 +113,7 @@ Drawing build_drawing(const Plan& plan) {
       if (t.flank(side).angled) placed.push_back(place_pin(t, side, pin));
     for (const auto& p : placed) d.pins.push_back({p.center, pin});
     d.pin_label = fmt::format("Pin{} {} dia, reading {} {}", placed.size() > 1 ? "s" : "",
-                              show(pin, u), show(r.value, u),
+                              length_text(pin, u), length_text(r.value, u),
                               r.method == ReadingMethod::OverPins      ? "over the pins"
                               : r.method == ReadingMethod::BetweenPins ? "between the pins"
                                                                        : "square side to pin");
@@ -169,16 +129,17 @@ Drawing build_drawing(const Plan& plan) {
     if (from > to) std::swap(from, to);
     const double z = placed.empty() ? 0 : placed[0].center.z;
     d.dimensions.push_back(
-        {DimensionKind::Horizontal, {from, z}, {to, z}, 0, 0, 0, r.value, show(r.value, u)});
+        {DimensionKind::Horizontal, {from, z}, {to, z}, 0, 0, 0, r.value, length_text(r.value, u)});
   }
 
   // Widths, depth and angle.
   const double base_z = -t.depth;
   d.dimensions.push_back({DimensionKind::Horizontal, t.left.base, t.right.base,
                           -(height - t.depth) - 0.12 * height, 0, 0, t.width_bottom(),
-                          show(t.width_bottom(), u)});
+                          length_text(t.width_bottom(), u)});
   d.dimensions.push_back({DimensionKind::Horizontal, t.left.top, t.right.top,
-                          tool_top + 0.1 * height, 0, 0, t.width_top(), show(t.width_top(), u)});
+                          tool_top + 0.1 * height, 0, 0, t.width_top(),
+                          length_text(t.width_top(), u)});
   d.dimensions.push_back({DimensionKind::Vertical,
                           {right, 0},
                           {right, base_z},
@@ -186,15 +147,15 @@ Drawing build_drawing(const Plan& plan) {
                           0,
                           0,
                           t.depth,
-                          show(t.depth, u)});
+                          length_text(t.depth, u)});
   const Side angled = t.left.angled ? Side::Left : Side::Right;
   const Flank& f = t.flank(angled);
   const double floor_deg = floor_direction(t, angled);
   const double flank_deg = degrees(std::atan2(f.top.z - f.base.z, f.top.x - f.base.x));
   // The arc clears the pin (it reaches 1.5 D from the corner at 60 deg).
   const double arc = std::max(0.6 * t.depth, job.gauge ? 1.7 * job.gauge->pin_diameter : 0.0);
-  d.dimensions.push_back({DimensionKind::Angle, f.base, f.top, arc,
-                          std::min(floor_deg, flank_deg), std::max(floor_deg, flank_deg), t.angle,
+  d.dimensions.push_back({DimensionKind::Angle, f.base, f.top, arc, std::min(floor_deg, flank_deg),
+                          std::max(floor_deg, flank_deg), t.angle,
                           fmt::format("{:g}\u00b0", t.angle)});
   return d;
 }

@@ -102,6 +102,7 @@ struct Mapper {
   Point2 operator()(Point2 p) const { return {ox + (p.x - x0) * scale, oy + (z1 - p.z) * scale}; }
   std::vector<Point2> ring(const std::vector<Point2>& r) const {
     std::vector<Point2> out;
+    out.reserve(r.size());
     for (const auto& p : r) out.push_back((*this)(p));
     return out;
   }

@@ -101,7 +101,7 @@ std::string drawing_svg(const Scene& scene) {
       case Hatch::None:
         break;
     }
-    const std::string id = fmt::format("hatch{}", patterns.size() + 1);
+    std::string id = fmt::format("hatch{}", patterns.size() + 1);
     patterns[key] = id;
     defs += fmt::format(
         "<pattern id=\"{}\" patternUnits=\"userSpaceOnUse\" width=\"{:g}\" height=\"{:g}\" "

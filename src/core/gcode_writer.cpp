@@ -18,20 +18,6 @@ bool finishing(PassRole role) {
   return role == PassRole::SemiFinish || role == PassRole::Finish || role == PassRole::Spring;
 }
 
-std::string role_words(PassRole role) {
-  switch (role) {
-    case PassRole::Rough:
-      return "rough";
-    case PassRole::SemiFinish:
-      return "semi-finish";
-    case PassRole::Finish:
-      return "finish";
-    case PassRole::Spring:
-      return "spring pass";
-  }
-  return "";
-}
-
 const Tool& tool_of(const Plan& plan, int number) {
   const Tool* tool = find_tool(plan.job, number);
   if (!tool)
@@ -144,8 +130,8 @@ class Writer {
 
   // One motion block. Axis words whose text has not changed are left out; a
   // block with nothing to move is not written.
-  void motion(MoveKind kind, Point3 to, double feed, std::vector<Word> extra = {},
-              std::string x_expression = {}, std::string why = {}) {
+  void motion(MoveKind kind, Point3 to, double feed, const std::vector<Word>& extra = {},
+              const std::string& x_expression = {}, std::string why = {}) {
     Block block;
     for (const auto& w : extra)
       if (w.letter == 'G') block.words.push_back(w);
@@ -183,7 +169,9 @@ class Writer {
 
   void write_pass(const Operation& op, const Pass& pass) {
     const detail::ProgramShow show{units_};
-    comment(fmt::format("pass {}: {}{}, stock left {}", pass.number, role_words(pass.role),
+    const std::string_view role =
+        pass.role == PassRole::Spring ? "spring pass" : pass_role_word(pass.role);
+    comment(fmt::format("pass {}: {}{}, stock left {}", pass.number, role,
                         pass.side ? (*pass.side == Side::Left ? ", left" : ", right") : ", centre",
                         show.len(pass.stock_left)));
     spindle_on(pass.rpm, "spindle and coolant on before the cut");

@@ -178,11 +178,10 @@ class JobReader {
     mate.type = *type;
     mate.reading = positive_length(t, "reading");
     mate.pin_diameter = positive_length(t, "pin_diameter");
-    if (mate.type == DovetailType::Female) {
+    // A female mate's depth is needed (its floor carries the pins); a male
+    // mate's is optional.
+    if (mate.type == DovetailType::Female || t.has("depth"))
       mate.depth = positive_length(t, "depth");
-    } else if (t.has("depth")) {
-      mate.depth = positive_length(t, "depth");
-    }
     mate.clearance = to_mm(t.number("clearance", -1, 1).value_or(0), job_.units);
     t.reject_unknown();
     job_.dovetail.mate = mate;

@@ -10,20 +10,6 @@ namespace {
 
 double len(double mm, Units u) { return length_value(mm, u); }
 
-const char* role_key(PassRole r) {
-  switch (r) {
-    case PassRole::Rough:
-      return "rough";
-    case PassRole::SemiFinish:
-      return "semi-finish";
-    case PassRole::Finish:
-      return "finish";
-    case PassRole::Spring:
-      return "spring";
-  }
-  return "";
-}
-
 const char* mode_key(MillingMode m) {
   switch (m) {
     case MillingMode::Conventional:
@@ -65,7 +51,7 @@ std::string plan_json(const Plan& plan) {
       nlohmann::json q;
       q["number"] = p.number;
       q["tool"] = p.tool;
-      q["role"] = role_key(p.role);
+      q["role"] = std::string(pass_role_word(p.role));
       q["side"] = p.side ? (*p.side == Side::Left ? "left" : "right") : "centre";
       q["x"] = len(p.x, u);
       q["taper_slope"] = p.taper_slope;

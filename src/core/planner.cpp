@@ -175,6 +175,20 @@ int last_pass_of(const Operation& op, PassRole role) {
 
 }  // namespace
 
+std::string_view pass_role_word(PassRole role) {
+  switch (role) {
+    case PassRole::Rough:
+      return "rough";
+    case PassRole::SemiFinish:
+      return "semi-finish";
+    case PassRole::Finish:
+      return "finish";
+    case PassRole::Spring:
+      return "spring";
+  }
+  return "";
+}
+
 std::vector<const Pass*> all_passes(const Plan& plan) {
   std::vector<const Pass*> out;
   for (const auto& op : plan.operations)

@@ -66,6 +66,7 @@ TableText table_lines(const std::vector<SheetColumn>& columns,
   };
   TableText table;
   std::vector<std::string> heading;
+  heading.reserve(columns.size());
   for (const auto& c : columns) heading.push_back(c.heading);
   table.head = emit(heading);
   std::string rule;

@@ -28,16 +28,6 @@ double pin_for(const Job& job, const DovetailSection& section) {
   return 0.8 * largest_pin(section.depth, section.chamfer, section.angle);
 }
 
-SectionRegion disc(Point2 centre, double radius) {
-  Ring ring;
-  constexpr int sides = 32;
-  for (int i = 0; i < sides; ++i) {
-    const double t = 2 * pi * i / sides;
-    ring.push_back({centre.x + radius * std::cos(t), centre.z + radius * std::sin(t)});
-  }
-  return SectionRegion::from_ring(ring);
-}
-
 // Where material may stay: the finished part grown by the allowance, and the
 // fillet a cutter's corner radius leaves in each base corner (it lies within
 // r / tan(a/2) of the sharp corner; the pins bridge it, pin_gauge.hpp).

@@ -163,12 +163,14 @@ class LineSampler {
   }
 
   Ring sweep(double t_lo, double t_hi, double t_mid) {
-    std::vector<double> splits;
     constexpr int seeds = 16;
+    std::vector<double> splits;
+    splits.reserve(seeds + 2);
     for (int i = 0; i <= seeds; ++i) splits.push_back(t_lo + (t_hi - t_lo) * i / seeds);
     if (t_mid > t_lo && t_mid < t_hi) splits.push_back(t_mid);
     std::sort(splits.begin(), splits.end());
     std::vector<Supports> seen;
+    seen.reserve(splits.size());
     for (double t : splits) seen.push_back(at(t));
     for (std::size_t i = 1; i < splits.size(); ++i)
       refine(splits[i - 1], seen[i - 1], splits[i], seen[i], 0);

@@ -16,20 +16,6 @@ using detail::ProgramShow;
 
 std::string side_words(Side side) { return side == Side::Left ? "left flank" : "right flank"; }
 
-std::string role_words(PassRole role) {
-  switch (role) {
-    case PassRole::Rough:
-      return "rough";
-    case PassRole::SemiFinish:
-      return "semi-finish";
-    case PassRole::Finish:
-      return "finish";
-    case PassRole::Spring:
-      return "spring";
-  }
-  return "";
-}
-
 std::string signed_len(const ProgramShow& s, double mm) {
   const std::string text = s.len(std::abs(mm));
   return (mm < 0 && s.num(std::abs(mm)) != s.num(0) ? "-" : "+") + text;
@@ -100,7 +86,7 @@ std::string format_trim(const Plan& plan, const Trim& t, SizingStyle style) {
                          "X", "Z", "Step", "Left");
       for (const auto& p : t.passes.operations.front().passes)
         out += fmt::format("  {:>4} {:<11} {:<12} {:>9} {:>9} {:>8} {:>8}\n", p.number,
-                           role_words(p.role), side_words(*p.side),
+                           pass_role_word(p.role), side_words(*p.side),
                            s.num(p.x) + (p.taper_slope != 0 ? "*" : ""), s.num(p.z),
                            s.num(p.radial_step), s.num(p.stock_left));
       out += wrapped("X is the tool axis at the front end (* runs at the gib's taper), Z the tip.",
@@ -193,8 +179,8 @@ std::string trim_sheet(const Plan& plan, const Trim& t) {
             : fmt::format("move {} {}, {} the flank", s.len(std::abs(move)), move > 0 ? "+X" : "-X",
                           move * toward > 0 ? "toward" : "away from");
     out += wrapped(fmt::format("{}. {}, {}: set X {} ({}), Z {}; feed {}.", p.number,
-                               role_words(p.role), side_words(*p.side), s.num(p.x), how, s.num(p.z),
-                               travel_words(p)));
+                               pass_role_word(p.role), side_words(*p.side), s.num(p.x), how,
+                               s.num(p.z), travel_words(p)));
     it->second = p.x;
   }
   out += wrapped(fmt::format("Then measure: expect {}.", s.len(plan.final_reading.value)));
