@@ -2,6 +2,7 @@
 
 #include <optional>
 #include <string>
+#include <string_view>
 #include <vector>
 
 #include <dovetailor/dovetail_section.hpp>
@@ -108,6 +109,10 @@ Drawing build_drawing(const Plan& plan);
 // z, up to `top` (mm): end mill a rectangle of its diameter; dovetail cutter
 // the cone of its flutes (large diameter at the tip), then its neck.
 std::vector<Point2> tool_silhouette(const Tool& tool, double x, double z, double top);
+
+// How a reading is taken, as a legend says it: "over the pins", "between
+// the pins", "square side to pin".
+std::string_view reading_words(ReadingMethod method);
 
 // Area enclosed by a ring (positive counter-clockwise), mm^2.
 double ring_area(const std::vector<Point2>& ring);

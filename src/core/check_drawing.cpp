@@ -17,18 +17,6 @@ double reading_miss(const StationResult& s) {
   return std::abs(s.measured.reading->value - s.target_reading.value);
 }
 
-std::string method_words(ReadingMethod m) {
-  switch (m) {
-    case ReadingMethod::OverPins:
-      return "over the pins";
-    case ReadingMethod::BetweenPins:
-      return "between the pins";
-    case ReadingMethod::SquareSideToPin:
-      return "square side to pin";
-  }
-  return "";
-}
-
 // Where the instrument touches on each side: the pin's far edge, or the
 // square flank's face.
 std::pair<double, double> measuring_span(const SectionMeasurement& m) {
@@ -103,7 +91,7 @@ Drawing build_check_drawing(const CheckReport& report, const Job& job, std::size
                             show(m.reading->value)});
     d.pin_label =
         fmt::format("Virtual pins {} dia: {} {} (target {}, {})", show(pin), show(m.reading->value),
-                    method_words(m.reading->method), show(s.target_reading.value),
+                    reading_words(m.reading->method), show(s.target_reading.value),
                     s.reading_in_tolerance ? "in tolerance" : "OUT of tolerance");
   } else {
     d.pin_label = fmt::format("Virtual pins {} dia: no reading ({})", show(pin),

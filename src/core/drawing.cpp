@@ -20,6 +20,18 @@ double floor_direction(const DovetailSection& s, Side side) {
 
 }  // namespace
 
+std::string_view reading_words(ReadingMethod method) {
+  switch (method) {
+    case ReadingMethod::OverPins:
+      return "over the pins";
+    case ReadingMethod::BetweenPins:
+      return "between the pins";
+    case ReadingMethod::SquareSideToPin:
+      return "square side to pin";
+  }
+  return "";
+}
+
 double ring_area(const std::vector<Point2>& ring) {
   double twice = 0;
   for (std::size_t i = 0; i < ring.size(); ++i) {
@@ -114,9 +126,7 @@ Drawing build_drawing(const Plan& plan) {
     for (const auto& p : placed) d.pins.push_back({p.center, pin});
     d.pin_label = fmt::format("Pin{} {} dia, reading {} {}", placed.size() > 1 ? "s" : "",
                               length_text(pin, u), length_text(r.value, u),
-                              r.method == ReadingMethod::OverPins      ? "over the pins"
-                              : r.method == ReadingMethod::BetweenPins ? "between the pins"
-                                                                       : "square side to pin");
+                              reading_words(r.method));
     double from = 0, to = 0;
     if (placed.size() == 2) {
       from = placed[0].measuring_edge_x;

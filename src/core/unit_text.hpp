@@ -26,17 +26,7 @@ struct UnitText {
 
 // A pass's role for a table column: "rough", "semi", "finish", "spring".
 inline std::string role_name(PassRole r) {
-  switch (r) {
-    case PassRole::Rough:
-      return "rough";
-    case PassRole::SemiFinish:
-      return "semi";
-    case PassRole::Finish:
-      return "finish";
-    case PassRole::Spring:
-      return "spring";
-  }
-  return "";
+  return r == PassRole::SemiFinish ? "semi" : std::string(pass_role_word(r));
 }
 
 // The flank a pass works toward: "left", "right", or "centre".
