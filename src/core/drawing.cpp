@@ -124,9 +124,9 @@ Drawing build_drawing(const Plan& plan) {
     for (Side side : {Side::Left, Side::Right})
       if (t.flank(side).angled) placed.push_back(place_pin(t, side, pin));
     for (const auto& p : placed) d.pins.push_back({p.center, pin});
-    d.pin_label = fmt::format("Pin{} {} dia, reading {} {}", placed.size() > 1 ? "s" : "",
-                              length_text(pin, u), length_text(r.value, u),
-                              reading_words(r.method));
+    d.pin_label =
+        fmt::format("Pin{} {} dia, reading {} {}", placed.size() > 1 ? "s" : "",
+                    length_text(pin, u), length_text(r.value, u), reading_words(r.method));
     double from = 0, to = 0;
     if (placed.size() == 2) {
       from = placed[0].measuring_edge_x;
