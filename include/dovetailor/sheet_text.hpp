@@ -14,5 +14,4 @@ namespace dovetailor {
 // its column is wrapped inside the column, never cut off.
 std::string sheet_text(const Sheet& sheet);
 
-
 }  // namespace dovetailor
