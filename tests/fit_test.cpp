@@ -85,8 +85,7 @@ TEST(fit, readings_of_a_gibbed_female_give_the_allowance_back) {
   // The pins read the female as cut, t/sin(a) wider on the gib side; the
   // gib fills that in assembly. 0.0938 in gib at 60 deg: 0.0938/0.8660254.
   const double allowance = to_mm(0.0938 / 0.8660254, in);
-  const MeasuredPart plain{DovetailType::Female, to_mm(1.0, in), to_mm(0.25, in),
-                           to_mm(0.375, in)};
+  const MeasuredPart plain{DovetailType::Female, to_mm(1.0, in), to_mm(0.25, in), to_mm(0.375, in)};
   MeasuredPart gibbed = plain;
   gibbed.reading += allowance;
   gibbed.gib_allowance = allowance;

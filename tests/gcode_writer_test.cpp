@@ -177,8 +177,8 @@ TEST(gcode_writer, mist_on_a_post_without_mist_is_refused) {
 
 TEST(gcode_writer, writes_in_the_units_asked_for) {
   const Plan p = plan(sample("stop-block-male"));
-  const std::string inch =
-      write_program(p, shipped("rs274ngc-full"), {.units = Units::Inch, .coolant = CoolantChoice::Off});
+  const std::string inch = write_program(p, shipped("rs274ngc-full"),
+                                         {.units = Units::Inch, .coolant = CoolantChoice::Off});
   EXPECT_NE(inch.find("G20 G17"), std::string::npos);
   EXPECT_EQ(inch.find("M8"), std::string::npos);
   // 5 mm safe height = 0.1969 in (25.4 mm to the inch, exact).

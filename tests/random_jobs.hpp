@@ -72,7 +72,8 @@ inline Job random_job(std::mt19937_64& rng) {
   }
   const double top = width_top_from_bottom(d.type, d.width, d.depth, d.angle, n);
   const double widest = std::max(d.width, top) + (d.gib ? 0.3 * in : 0);
-  job.stock = {widest + between(1.0, 2.0) * in, between(2.0, 6.0) * in, d.depth + between(0.3, 1.0) * in};
+  job.stock = {widest + between(1.0, 2.0) * in, between(2.0, 6.0) * in,
+               d.depth + between(0.3, 1.0) * in};
   d.length = job.stock.length;
   d.ends = Ends::Open;
   if (unit(rng) < 0.2) {

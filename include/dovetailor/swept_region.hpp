@@ -44,7 +44,6 @@ namespace dovetailor {
 // arcs (chords cut inside a convex arc, so up to `tolerance` of the arc's
 // inner side may be swept too far toward its centre).
 
-
 struct SweepOptions {
   double tolerance = 1e-4;  // mm, the chord error of every curve replaced by chords
 };
