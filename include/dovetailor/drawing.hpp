@@ -105,6 +105,10 @@ struct Drawing {
 // distance, the widths at the base and top planes, the depth and the angle.
 Drawing build_drawing(const Plan& plan);
 
+// The stock as supplied, in a drawing of `job`: sets the drawing's extent
+// (stock_min, stock_max), adds its dashed outline, and returns the ring.
+std::vector<Point2> add_stock(Drawing& drawing, const Job& job);
+
 // The silhouette of a tool in the section with its axis at x and its tip at
 // z, up to `top` (mm): end mill a rectangle of its diameter; dovetail cutter
 // the cone of its flutes (large diameter at the tip), then its neck.

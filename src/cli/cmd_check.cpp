@@ -26,8 +26,7 @@ struct CheckCommandOptions {
   bool json = false;
   std::string draw;      // drawing output file, empty for none
   int draw_station = 0;  // 1-based; 0 picks the station most worth a look
-  int width = 1600;      // PNG pixels
-  int height = 1000;
+  PngSize png;
   bool force = false;
 };
 
@@ -58,7 +57,7 @@ void run_check(const CheckCommandOptions& o) {
     const std::size_t station =
         o.draw_station > 0 ? static_cast<std::size_t>(o.draw_station - 1) : station_to_draw(report);
     drawing_file->write(
-        drawing_file_bytes(build_check_drawing(report, job, station), o.draw, o.width, o.height));
+        drawing_file_bytes(build_check_drawing(report, job, station), o.draw, o.png));
     drawing_file->commit();
   }
   fmt::print("{}", o.json ? check_json(report) + "\n" : format_check_report(report));
@@ -86,8 +85,7 @@ void setup_check(CLI::App& app) {
   cmd->add_option("--draw-station", o->draw_station,
                   "Station to draw, 1 = front end (default: the one most worth a look)")
       ->check(CLI::Range(1, 1000));
-  cmd->add_option("--width", o->width, "PNG width in pixels")->check(CLI::Range(200, 8000));
-  cmd->add_option("--height", o->height, "PNG height in pixels")->check(CLI::Range(150, 8000));
+  add_png_size_options(*cmd, o->png);
   cmd->add_flag("--force", o->force, "Replace an existing drawing file");
   cmd->callback([o] { run_check(*o); });
 }

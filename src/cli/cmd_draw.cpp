@@ -14,16 +14,15 @@ namespace {
 struct DrawOptions {
   std::string job_file;
   std::string output;
-  int width = 1600;  // PNG pixels
-  int height = 1000;
+  PngSize png;
   bool force = false;
 };
 
 void run_draw(const DrawOptions& o) {
   require_drawing_format(o.output, "-o");
   const Job job = read_job(read_text_file(o.job_file), o.job_file);
-  write_file_atomically(
-      o.output, drawing_file_bytes(build_drawing(plan(job)), o.output, o.width, o.height), o.force);
+  write_file_atomically(o.output, drawing_file_bytes(build_drawing(plan(job)), o.output, o.png),
+                        o.force);
 }
 
 }  // namespace
@@ -34,8 +33,7 @@ void setup_draw(CLI::App& app) {
       "draw", "The cross-section to scale: stock, part, each operation's cut, tools, pins.");
   cmd->add_option("job", o->job_file, "Job file (TOML)")->required();
   cmd->add_option("-o,--output", o->output, "Output file: .svg, .png or .pdf")->required();
-  cmd->add_option("--width", o->width, "PNG width in pixels")->check(CLI::Range(200, 8000));
-  cmd->add_option("--height", o->height, "PNG height in pixels")->check(CLI::Range(150, 8000));
+  add_png_size_options(*cmd, o->png);
   cmd->add_flag("--force", o->force, "Replace an existing output file");
   cmd->callback([o] { run_draw(*o); });
 }

@@ -55,9 +55,8 @@ Drawing build_check_drawing(const CheckReport& report, const Job& job, std::size
   d.subtitle = fmt::format("Section at y = {} (station {} of {}), looking from the front end; {}",
                            show(s.y), station + 1, report.stations.size(),
                            u == Units::Inch ? "dimensions in inches" : "dimensions in mm");
-  const double left = stock_left_x(job), right = stock_right_x(job), height = job.stock.height;
-  d.stock_min = {left, -height};
-  d.stock_max = {right, 0};
+  add_stock(d, job);
+  const double right = d.stock_max.x, height = -d.stock_min.z;
 
   d.regions.push_back({RegionFill::Simulated, 0, s.section, "Material the program leaves"});
   if (!s.gouged.empty())
@@ -66,13 +65,10 @@ Drawing build_check_drawing(const CheckReport& report, const Job& job, std::size
   if (!s.leftover.empty())
     d.regions.push_back(
         {RegionFill::Leftover, 0, s.leftover, "Stock left outside the part beyond the tolerance"});
-  d.outlines.push_back({OutlineStyle::Stock,
-                        {{left, -height}, {right, -height}, {right, 0}, {left, 0}},
-                        "Stock as supplied",
-                        ""});
-  for (const auto& ring : s.target_part)
-    d.outlines.push_back({OutlineStyle::Target, ring,
-                          d.outlines.size() == 1 ? "Finished part wanted (target)" : "", ""});
+  // One legend entry for the target, however many rings it has.
+  for (std::size_t i = 0; i < s.target_part.size(); ++i)
+    d.outlines.push_back({OutlineStyle::Target, s.target_part[i],
+                          i == 0 ? "Finished part wanted (target)" : "", ""});
 
   const SectionMeasurement& m = s.measured;
   const double pin = s.target_reading.pin_diameter;

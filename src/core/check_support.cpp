@@ -66,14 +66,16 @@ std::vector<GridPoint> on_grid(const Ring& ring) {
   return points;
 }
 
-SectionRegion translated(const std::vector<GridPoint>& ring, std::int64_t dx, std::int64_t dz) {
-  if (ring.empty()) return {};
-  std::vector<GridPoint> moved(ring);
-  for (GridPoint& p : moved) {
-    p.x += dx;
-    p.z += dz;
-  }
-  return SectionRegion::from_grid_rings({std::move(moved)});
+// A region (normalised rings on the grid) moved by whole grid steps: exact.
+// Empty rings are dropped.
+SectionRegion shifted(std::vector<std::vector<GridPoint>> rings, std::int64_t dx, std::int64_t dz) {
+  std::erase_if(rings, [](const std::vector<GridPoint>& ring) { return ring.empty(); });
+  for (auto& ring : rings)
+    for (GridPoint& p : ring) {
+      p.x += dx;
+      p.z += dz;
+    }
+  return SectionRegion::from_grid_rings(std::move(rings));
 }
 
 void widen(std::optional<Bounds2>& bounds, const SectionRegion& region) {
@@ -144,43 +146,26 @@ StationSweep sweep_silhouettes(const SimTool& tool, double x, double z) {
   StationSweep sweep;
   const std::int64_t dx = to_grid(x), dz = to_grid(z);
   for (const auto& s : tool.silhouettes) {
-    SectionRegion region = translated(s.ring, dx, dz);
+    SectionRegion region = shifted({s.ring}, dx, dz);
     if (s.part == BodyPart::Flutes)
       sweep.flutes = sweep.flutes.empty() ? std::move(region) : unite(sweep.flutes, region);
     else
       add_other(sweep, s.part, std::move(region));
   }
-  sweep.column = translated(tool.column_silhouette, dx, dz);
+  sweep.column = shifted({tool.column_silhouette}, dx, dz);
   widen(sweep.bounds, sweep.flutes);
   for (const auto& other : sweep.others) widen(sweep.bounds, other.second);
   return sweep;
 }
 
-namespace {
-
-SectionRegion shifted(const SectionRegion& region, std::int64_t dx, std::int64_t dz) {
-  std::vector<std::vector<GridPoint>> rings = region.grid_rings();
-  for (auto& ring : rings)
-    for (GridPoint& p : ring) {
-      p.x += dx;
-      p.z += dz;
-    }
-  return SectionRegion::from_grid_rings(std::move(rings));
-}
-
-}  // namespace
-
 StationSweep shifted(const StationSweep& sweep, std::int64_t dx, std::int64_t dz) {
   StationSweep out;
-  out.flutes = shifted(sweep.flutes, dx, dz);
+  out.flutes = shifted(sweep.flutes.grid_rings(), dx, dz);
   for (const auto& [part, region] : sweep.others)
-    out.others.emplace_back(part, shifted(region, dx, dz));
-  out.column = shifted(sweep.column, dx, dz);
-  if (sweep.bounds) {
-    const double ox = from_grid(dx), oz = from_grid(dz);
-    out.bounds = Bounds2{sweep.bounds->x_min + ox, sweep.bounds->z_min + oz,
-                         sweep.bounds->x_max + ox, sweep.bounds->z_max + oz};
-  }
+    out.others.emplace_back(part, shifted(region.grid_rings(), dx, dz));
+  out.column = shifted(sweep.column.grid_rings(), dx, dz);
+  widen(out.bounds, out.flutes);
+  for (const auto& other : out.others) widen(out.bounds, other.second);
   return out;
 }
 

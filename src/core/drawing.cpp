@@ -59,6 +59,15 @@ std::vector<Point2> tool_silhouette(const Tool& tool, double x, double z, double
   return ring;
 }
 
+std::vector<Point2> add_stock(Drawing& drawing, const Job& job) {
+  const double left = stock_left_x(job), right = stock_right_x(job), height = job.stock.height;
+  drawing.stock_min = {left, -height};
+  drawing.stock_max = {right, 0};
+  std::vector<Point2> ring = {{left, -height}, {right, -height}, {right, 0}, {left, 0}};
+  drawing.outlines.push_back({OutlineStyle::Stock, ring, "Stock as supplied", ""});
+  return ring;
+}
+
 Drawing build_drawing(const Plan& plan) {
   const Job& job = plan.job;
   const Units u = job.units;
@@ -67,11 +76,8 @@ Drawing build_drawing(const Plan& plan) {
   d.title = job.part.name.empty() ? job.source : job.part.name;
   d.subtitle = fmt::format("Section across the slide, looking from the front end; {}",
                            u == Units::Inch ? "dimensions in inches" : "dimensions in mm");
-  const double left = stock_left_x(job), right = stock_right_x(job), height = job.stock.height;
-  d.stock_min = {left, -height};
-  d.stock_max = {right, 0};
-  const std::vector<Point2> stock_ring = {{left, -height}, {right, -height}, {right, 0}, {left, 0}};
-  const SectionRegion stock = SectionRegion::from_ring(stock_ring);
+  const SectionRegion stock = SectionRegion::from_ring(add_stock(d, job));
+  const double left = d.stock_min.x, right = d.stock_max.x, height = -d.stock_min.z;
 
   // What each operation removes: the sweep of its passes, inside the stock,
   // less what the operations before it removed.
@@ -93,7 +99,6 @@ Drawing build_drawing(const Plan& plan) {
   }
   d.regions.push_back(
       {RegionFill::Part, 0, {part_outline(t, left, right, height)}, "Finished part"});
-  d.outlines.push_back({OutlineStyle::Stock, stock_ring, "Stock as supplied", ""});
 
   // The dovetail cutter at its first pass and its finishing pass.
   const Pass* first = nullptr;

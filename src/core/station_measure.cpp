@@ -56,7 +56,8 @@ void measure_stations(const Job& job, const StationSimulator& sim, FindingSink& 
     const double pin = pin_for(job, target.section);
 
     const SectionRegion excess = subtract(material, allowed_material(job, target));
-    if (excess.area() > least_area) {
+    const bool stock_left = excess.area() > least_area;
+    if (stock_left) {
       const auto b = *excess.bounds();
       const double thick = thickness_of(excess) + target.allowance;
       sink.add({.kind = FindingKind::StockLeft,
@@ -78,7 +79,7 @@ void measure_stations(const Job& job, const StationSimulator& sim, FindingSink& 
     r.target_part = target.part.rings();
     const SectionRegion gouged = subtract(target.forbidden, material);
     if (gouged.area() > least_area) r.gouged = gouged.rings();
-    if (excess.area() > least_area) r.leftover = excess.rings();
+    if (stock_left) r.leftover = excess.rings();
     r.measured = measure_section(material, target.section, {.pin_diameter = pin});
     r.target_depth = target.section.depth;
     r.target_width_bottom = target.section.width_bottom();

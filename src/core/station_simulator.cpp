@@ -40,23 +40,25 @@ bool clear_of(const MaterialPtr& material, const Bounds2& box) {
   return !material->bounds || !overlaps(*material->bounds, box);
 }
 
+// Folds one more value into a hash (the usual golden-ratio mix).
+void mix(std::size_t& h, std::uint64_t v) { h ^= v + 0x9e3779b97f4a7c15ULL + (h << 6) + (h >> 2); }
+
 }  // namespace
 
 std::size_t StationSimulator::MemoHash::operator()(const MemoKey& k) const {
   std::size_t h = std::hash<std::uint64_t>()(k.material);
-  const auto mix = [&h](std::uint64_t v) { h ^= v + 0x9e3779b97f4a7c15ULL + (h << 6) + (h >> 2); };
-  mix(static_cast<std::uint64_t>(k.target));
-  mix(static_cast<std::uint64_t>(k.tool));
-  mix(static_cast<std::uint64_t>(k.x));
-  mix(static_cast<std::uint64_t>(k.z));
-  mix(static_cast<std::uint64_t>(k.flags));
+  mix(h, static_cast<std::uint64_t>(k.target));
+  mix(h, static_cast<std::uint64_t>(k.tool));
+  mix(h, static_cast<std::uint64_t>(k.x));
+  mix(h, static_cast<std::uint64_t>(k.z));
+  mix(h, static_cast<std::uint64_t>(k.flags));
   return h;
 }
 
 std::size_t StationSimulator::ShapeHash::operator()(const ShapeKey& k) const {
   std::size_t h = std::hash<std::int64_t>()(k.sx);
-  h ^= std::hash<std::int64_t>()(k.sz) + 0x9e3779b97f4a7c15ULL + (h << 6) + (h >> 2);
-  h ^= static_cast<std::size_t>(k.tool) + 0x9e3779b97f4a7c15ULL + (h << 6) + (h >> 2);
+  mix(h, static_cast<std::uint64_t>(k.sz));
+  mix(h, static_cast<std::uint64_t>(k.tool));
   return h;
 }
 
@@ -168,9 +170,7 @@ void StationSimulator::start_line_run(const SimTool& tool, const Point3& from, c
 void StationSimulator::extend_line_run(const Point3& from, const Point3& to, int line) {
   LineRun& r = line_run_;
   if (r.last_line != 0) r.joints.push_back(from);
-  const auto [first, last] = stations_near(std::min(from.y, to.y), std::max(from.y, to.y), 0);
-  for (std::size_t s = first; s < last; ++s)
-    if (r.crossing_line[s] == 0) r.crossing_line[s] = line;
+  mark_crossings(r.crossing_line, from, to, line);
   r.to = to;
   r.last_line = line;
 }
@@ -193,24 +193,22 @@ const StationSweep& StationSimulator::crossing_shape(const SimTool& tool, double
 }
 
 void StationSimulator::sweep_straight(const SimTool& tool, const Point3& from, const Point3& to,
-                                      const MoveFacts& facts,
-                                      const std::vector<int>* crossing_line) {
+                                      const MoveFacts& facts, const LineRun* run) {
   const double dx = to.x - from.x, dy = to.y - from.y, dz = to.z - from.z;
   const double reach = tool.body.max_radius();
   const auto [first, last] = stations_near(std::min(from.y, to.y), std::max(from.y, to.y), reach);
   MoveFacts f = facts;
   f.tip_z = std::max(from.z, to.z);
-  f.plunging = dz < -still;
   const Bounds2 box = reach_box(tool.body, std::min(from.x, to.x), std::max(from.x, to.x),
                                 std::min(from.z, to.z), std::max(from.z, to.z));
   for (std::size_t s = first; s < last; ++s) {
     if (clear_of(material_[s], box)) continue;
     const double y = ys_[s];
-    if (crossing_line) {
-      const int crossing = (*crossing_line)[s];
+    if (run) {
+      const int crossing = run->crossing_line[s];
       f.line = crossing != 0                               ? crossing
-               : std::abs(y - from.y) < std::abs(y - to.y) ? line_run_.first_line
-                                                           : line_run_.last_line;
+               : std::abs(y - from.y) < std::abs(y - to.y) ? run->first_line
+                                                           : run->last_line;
     }
     const bool through = std::abs(dy) > still && (y - from.y) * (to.y - y) > 0 &&
                          std::min(std::abs(y - from.y), std::abs(y - to.y)) >= reach;
@@ -269,10 +267,15 @@ void StationSimulator::start_run(const SimTool& tool, const Point3& from, const 
   extend_run(from, to, facts.line);
 }
 
-void StationSimulator::extend_run(const Point3& from, const Point3& to, int line) {
+void StationSimulator::mark_crossings(std::vector<int>& crossing_line, const Point3& from,
+                                      const Point3& to, int line) const {
   const auto [first, last] = stations_near(std::min(from.y, to.y), std::max(from.y, to.y), 0);
   for (std::size_t s = first; s < last; ++s)
-    if (run_.crossing_line[s] == 0) run_.crossing_line[s] = line;
+    if (crossing_line[s] == 0) crossing_line[s] = line;
+}
+
+void StationSimulator::extend_run(const Point3& from, const Point3& to, int line) {
+  mark_crossings(run_.crossing_line, from, to, line);
   run_.y_end = to.y;
   run_.last_line = line;
 }
@@ -280,8 +283,7 @@ void StationSimulator::extend_run(const Point3& from, const Point3& to, int line
 void StationSimulator::flush() {
   if (line_run_open_) {
     line_run_open_ = false;
-    sweep_straight(*line_run_.tool, line_run_.from, line_run_.to, line_run_.facts,
-                   &line_run_.crossing_line);
+    sweep_straight(*line_run_.tool, line_run_.from, line_run_.to, line_run_.facts, &line_run_);
   }
   if (!run_open_) return;
   run_open_ = false;

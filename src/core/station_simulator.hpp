@@ -89,8 +89,14 @@ class StationSimulator {
   void start_line_run(const SimTool& tool, const Point3& from, const Point3& to,
                       const MoveFacts& facts);
   void extend_line_run(const Point3& from, const Point3& to, int line);
+  // Sweeps one straight move, or a gathered run of them (`run`: each station
+  // is then named by the move that crossed it, or the run's nearer end).
   void sweep_straight(const SimTool& tool, const Point3& from, const Point3& to,
-                      const MoveFacts& facts, const std::vector<int>* crossing_line);
+                      const MoveFacts& facts, const LineRun* run);
+  // Marks the stations that the y-span of one move of a run crosses, keeping
+  // the first move's line.
+  void mark_crossings(std::vector<int>& crossing_line, const Point3& from, const Point3& to,
+                      int line) const;
   void apply(std::size_t station, const Outcome& outcome, int line);
   void apply_general(std::size_t station, const StationSweep& sweep, const MoveFacts& facts,
                      const SimTool& tool);
