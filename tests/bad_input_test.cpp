@@ -46,7 +46,10 @@ RunResult run(const fs::path& dir, const std::vector<std::string>& args) {
   const fs::path logs = dir.parent_path() / (dir.filename().string() + ".logs");
   fs::create_directories(logs);
   std::string command = "cd " + quote(dir.string()) + " && " + quote(DOVETAILOR_BINARY);
-  for (const auto& a : args) command += " " + quote(a);
+  for (const auto& a : args) {
+    command += ' ';
+    command += quote(a);
+  }
   command += " > " + quote((logs / "out").string()) + " 2> " + quote((logs / "err").string());
   const int status = std::system(command.c_str());
   RunResult r;

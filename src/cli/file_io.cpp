@@ -12,6 +12,8 @@
 #include <unistd.h>
 #include <utility>
 
+#include <fmt/format.h>
+
 #include <dovetailor/error.hpp>
 
 namespace dovetailor::cli {
@@ -47,9 +49,8 @@ AtomicFile::AtomicFile(std::string path, bool force) : path_(std::move(path)) {
   const fs::path folder = target.has_parent_path() ? target.parent_path() : fs::path(".");
   std::random_device random;
   for (int attempt = 0; attempt < 100 && fd_ < 0; ++attempt) {
-    temp_ =
-        (folder / ("." + target.filename().string() + ".tmp" + std::to_string(random() % 1000000)))
-            .string();
+    temp_ = (folder / fmt::format(".{}.tmp{}", target.filename().string(), random() % 1000000))
+                .string();
     fd_ = ::open(temp_.c_str(), O_WRONLY | O_CREAT | O_EXCL | O_CLOEXEC, 0644);
     if (fd_ < 0 && errno != EEXIST) break;
   }

@@ -10,12 +10,21 @@ std::string describe(const SourcePlace& where, const std::string& field,
   if (!where.file.empty()) {
     out += where.file;
     if (where.line > 0) {
-      out += ":" + std::to_string(where.line);
-      if (where.column > 0) out += ":" + std::to_string(where.column);
+      // Appended piece by piece: GCC 12 at -O3 warns falsely (-Wrestrict)
+      // on `":" + std::to_string(n)`.
+      out += ':';
+      out += std::to_string(where.line);
+      if (where.column > 0) {
+        out += ':';
+        out += std::to_string(where.column);
+      }
     }
     out += ": ";
   }
-  if (!field.empty()) out += field + ": ";
+  if (!field.empty()) {
+    out += field;
+    out += ": ";
+  }
   out += message;
   return out;
 }

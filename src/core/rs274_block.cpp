@@ -1,6 +1,8 @@
 #include <cassert>
 #include <cmath>
 
+#include <fmt/format.h>
+
 #include <dovetailor/error.hpp>
 #include <dovetailor/rs274_block.hpp>
 
@@ -102,7 +104,7 @@ Rs274Block read_rs274_block(std::string_view text, int line_index, const std::st
       const auto number_at = line.position();
       const std::string field = "#";
       const int number = detail::read_integer_value(line, parameters, limits.max_nesting, field);
-      const std::string name = "#" + std::to_string(number);
+      const std::string name = fmt::format("#{}", number);
       if (!parameters.valid(number))
         line.fail("parameter " + name + " does not exist; use #1 to #" +
                       std::to_string(parameters.highest()),

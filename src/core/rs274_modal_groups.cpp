@@ -1,5 +1,7 @@
 #include "rs274_modal_groups.hpp"
 
+#include <fmt/format.h>
+
 namespace dovetailor::detail {
 
 // Modal groups of G codes (NISTIR 6556 table 4 "Modal groups", from
@@ -105,9 +107,9 @@ int m_group(int code) {
 }
 
 std::string g_name(int code) {
-  return "G" + std::to_string(code / 10) + (code % 10 ? "." + std::to_string(code % 10) : "");
+  return code % 10 ? fmt::format("G{}.{}", code / 10, code % 10) : fmt::format("G{}", code / 10);
 }
 
-std::string m_name(int code) { return "M" + std::to_string(code); }
+std::string m_name(int code) { return fmt::format("M{}", code); }
 
 }  // namespace dovetailor::detail

@@ -115,7 +115,10 @@ std::string format_trim(const Plan& plan, const Trim& t, SizingStyle style) {
           "{} deep, more than the {} allowed. This cannot be undone: the trim passes keep the "
           "planned Z; check the tool length before cutting on.",
           s.len(d.error()), s.len(d.tolerance));
-    out += "\n" + wrapped(line);
+    {
+      out += '\n';
+      out += wrapped(line);
+    }
   }
   if (t.verdict != TrimVerdict::OverCut) {
     const bool last = c.remaining_per_flank <= 0;
@@ -146,8 +149,10 @@ std::string format_trim(const Plan& plan, const Trim& t, SizingStyle style) {
             "corrective passes.";
         break;
     }
-    if (std::abs(t.offset_change) > 1e-9 || style == SizingStyle::Plain)
-      out += "\n" + wrapped(line);
+    if (std::abs(t.offset_change) > 1e-9 || style == SizingStyle::Plain) {
+      out += '\n';
+      out += wrapped(line);
+    }
   }
   return out;
 }
