@@ -150,7 +150,7 @@ std::vector<Case> catalogue() {
                          with("angle = 60\ndepth", std::string("angle = ") + angle + "\ndepth"),
                          {"job.toml:14:", "dovetail.angle", "from 30 to 75"}));
   c.push_back(job_case("cutter_angle_mismatch", with("angle = 60\nneck", "angle = 55\nneck"),
-                       {"job.toml", "tool.angle", "55 deg but the dovetail is 60 deg"}, "plan"));
+                       {"job.toml", "tool.angle", "55 deg and the dovetail 60 deg"}, "plan"));
   c.push_back(job_case("pin_cannot_touch_the_flank",
                        with("pin_diameter = 0.2500", "pin_diameter = 0.6"),
                        {"job.toml:46:", "gauge.pin_diameter", "flank ends"}));

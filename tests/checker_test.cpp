@@ -112,6 +112,39 @@ TEST(checker, planned_random_jobs_check_clean) {
   }
 }
 
+// A cutter within the planner's 0.1 deg of the dovetail's angle cuts the
+// flank at its own angle; the plan is for that flank, and so is the section
+// the checker holds the program to (planner.hpp, dovetail_as_cut).
+TEST(checker, planned_program_of_a_cutter_a_tenth_of_a_degree_off_checks_clean) {
+  for (double angle : {45.1, 44.9}) {
+    SCOPED_TRACE(angle);
+    Job job = sample("stop-block-male.toml");
+    job.tools[1].angle = angle;
+    expect_round_trip(job);
+  }
+}
+
+// Female jobs whose roughed slot is narrower than the dovetail cutter: its
+// first pass down the slot cuts the walls, on one wall only on a manual mill.
+TEST(checker, planned_random_narrow_slot_jobs_check_clean) {
+  std::mt19937_64 rng(20261205);
+  int planned = 0;
+  for (int i = 0; i < testing::random_cases(20); ++i) {
+    SCOPED_TRACE(i);
+    Job job = testing::random_job(rng, {.type = DovetailType::Female,
+                                        .machine = i % 2 ? MachineKind::Manual : MachineKind::Cnc,
+                                        .narrow_slot = true});
+    try {
+      (void)plan(job);
+    } catch (const InputError&) {
+      continue;
+    }
+    ++planned;
+    expect_round_trip(job);
+  }
+  EXPECT_GT(planned, 0);
+}
+
 // The male stop-block rail (samples/stop-block-male.toml: stock 90 x 160 x
 // 25 mm, x from -45 to 45; tongue 40 mm across the top, 28 mm at the 6 mm
 // deep shelf, 45 deg), with its end mill T3 given 10 mm flutes and a 16 mm

@@ -5,7 +5,9 @@
 // end mill and a dovetail cutter sized to fit. Fixed seeds keep runs
 // repeatable. The numbers are invented; only their relations matter.
 
+#include <algorithm>
 #include <cmath>
+#include <optional>
 #include <random>
 
 #include <dovetailor/dovetail_section.hpp>
@@ -13,7 +15,20 @@
 
 namespace dovetailor::testing {
 
-inline Job random_job(std::mt19937_64& rng) {
+// What a property test may pin down; unset, each is drawn at random. The
+// draws are the same either way, so a seed gives the same jobs otherwise.
+struct RandomJobOptions {
+  std::optional<DovetailType> type = {};
+  std::optional<AngledSides> sides = {};
+  std::optional<MachineKind> machine = {};
+  // Female only: a mouth of 0.86 to 1.0 times the dovetail cutter's diameter,
+  // so that the roughed slot is narrower than the cutter and its first pass
+  // down the slot cuts into the slot's walls (the base-plane width stays at
+  // least the cutter's diameter, so the cutter can finish each flank).
+  bool narrow_slot = false;
+};
+
+inline Job random_job(std::mt19937_64& rng, const RandomJobOptions& options = {}) {
   std::uniform_real_distribution<double> unit(0.0, 1.0);
   const auto between = [&](double a, double b) { return a + (b - a) * unit(rng); };
   Job job;
@@ -23,10 +38,12 @@ inline Job random_job(std::mt19937_64& rng) {
   job.part = {"random part", unit(rng) < 0.5 ? "cast iron" : "6061"};
   auto& d = job.dovetail;
   d.type = unit(rng) < 0.5 ? DovetailType::Male : DovetailType::Female;
+  d.type = options.type.value_or(d.type);
   const double angles[] = {45, 50, 55, 60};
   d.angle = angles[static_cast<int>(unit(rng) * 4) % 4];
   const double r = unit(rng);
   d.sides = r < 0.7 ? AngledSides::Both : (r < 0.85 ? AngledSides::Left : AngledSides::Right);
+  d.sides = options.sides.value_or(d.sides);
   d.depth = between(0.15, 0.45) * in;
   const double cot = 1 / std::tan(radians(d.angle));
   const int n = d.sides == AngledSides::Both ? 2 : 1;
@@ -53,7 +70,11 @@ inline Job random_job(std::mt19937_64& rng) {
   mill.material = ToolMaterial::Carbide;
   mill.flute_length = d.depth * between(1.2, 3.0);
   if (d.type == DovetailType::Female) {
-    const double bottom = cutter.diameter + n * d.depth * cot + between(0.2, 1.0) * in;
+    const double room = between(0.2, 1.0);
+    double bottom = cutter.diameter + n * d.depth * cot + room * in;
+    if (options.narrow_slot)
+      bottom = std::max(cutter.diameter * (0.86 + 0.175 * (room - 0.2)) + n * d.depth * cot,
+                        cutter.diameter + 0.01 * in);
     d.width = bottom;
     d.width_at = WidthAt::Bottom;
     const double mouth = bottom - n * d.depth * cot;
@@ -88,6 +109,7 @@ inline Job random_job(std::mt19937_64& rng) {
                             2.5 * cutter.corner_radius + 0.01);
   job.gauge = g;
   job.machine.kind = unit(rng) < 0.3 ? MachineKind::Manual : MachineKind::Cnc;
+  job.machine.kind = options.machine.value_or(job.machine.kind);
   return job;
 }
 

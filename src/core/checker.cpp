@@ -61,7 +61,9 @@ PlannerRules planner_rules(const Job& job) {
 StationTarget target_at(const Job& job, double y, int id, double allowance) {
   StationTarget t;
   t.id = id;
-  t.section = section_at(job.dovetail, y);
+  // The section the job's dovetail cutter cuts: at its own angle when that
+  // is within the planner's tolerance (planner.hpp, dovetail_as_cut).
+  t.section = section_at(dovetail_as_cut(job), y);
   t.allowance = allowance;
   t.part = SectionRegion::from_ring(
       part_outline(t.section, stock_left_x(job), stock_right_x(job), job.stock.height));

@@ -26,7 +26,7 @@ MillingMode mode_of(bool plus_x_engaged, Along along) {
 }
 
 void add_moves(const PlanContext& ctx, Pass& pass, double tool_radius, Along along,
-               double previous_x, double plunge_feed) {
+               AxisLine previous, double plunge_feed) {
   if (pass.number > max_passes)
     throw InputError(
         fmt::format("this job would need more than {} passes: check the sizes and units (a "
@@ -37,8 +37,9 @@ void add_moves(const PlanContext& ctx, Pass& pass, double tool_radius, Along alo
   const double outside_front = -(tool_radius + ctx.clearance);
   const bool front_open = ctx.job.dovetail.ends == Ends::FrontOpen;
   const double far = front_open ? length - tool_radius : length + tool_radius + ctx.clearance;
-  const auto at = [&](double x_at_zero, double y, double z) {
-    return Point3{x_at_zero + pass.taper_slope * y, y, z};
+  const AxisLine own{pass.x, pass.taper_slope};
+  const auto at = [&](AxisLine line, double y, double z) {
+    return Point3{line.x + line.slope * y, y, z};
   };
   auto& m = pass.moves;
   const auto rapid = [&](Point3 p) { m.push_back({MoveKind::Rapid, p, 0}); };
@@ -48,29 +49,32 @@ void add_moves(const PlanContext& ctx, Pass& pass, double tool_radius, Along alo
   if (!front_open) {
     const double start = along == Along::Forward ? outside_front : far;
     const double end = along == Along::Forward ? far : outside_front;
-    rapid(at(pass.x, start, ctx.safe_z));
-    rapid(at(pass.x, start, ctx.near_z));
-    feed(at(pass.x, start, pass.z), plunge_feed);
-    feed(at(pass.x, end, pass.z), pass.feed);
-    rapid(at(pass.x, end, ctx.safe_z));
+    rapid(at(own, start, ctx.safe_z));
+    rapid(at(own, start, ctx.near_z));
+    feed(at(own, start, pass.z), plunge_feed);
+    feed(at(own, end, pass.z), pass.feed);
+    rapid(at(own, end, ctx.safe_z));
     return;
   }
-  // Front-open: in from the front end, and out the same way; the dovetail
-  // cutter may never rise inside the slot.
-  const bool cut_going_in = along == Along::Forward || !dovetail;
-  const double in_x = cut_going_in ? pass.x : previous_x;
-  rapid(at(in_x, outside_front, ctx.safe_z));
-  rapid(at(in_x, outside_front, ctx.near_z));
-  feed(at(in_x, outside_front, pass.z), plunge_feed);
-  feed(at(in_x, far, pass.z), pass.feed);
-  if (!dovetail) {
-    feed(at(in_x, far, ctx.near_z), plunge_feed);
-    rapid(at(in_x, far, ctx.safe_z));
+  // Front-open: in from the front end. A cut feeding +Y is taken on the way
+  // in; the end mill then leaves upward at the closed end, the dovetail
+  // cutter (which may never rise inside the slot) comes back on its line. A
+  // cut feeding -Y runs in on the cleared line, steps over at the closed end
+  // and is taken on the way out.
+  const bool cut_going_in = along == Along::Forward;
+  const AxisLine in = cut_going_in ? own : previous;
+  rapid(at(in, outside_front, ctx.safe_z));
+  rapid(at(in, outside_front, ctx.near_z));
+  feed(at(in, outside_front, pass.z), plunge_feed);
+  feed(at(in, far, pass.z), pass.feed);
+  if (cut_going_in && !dovetail) {
+    feed(at(in, far, ctx.near_z), plunge_feed);
+    rapid(at(in, far, ctx.safe_z));
     return;
   }
-  if (!cut_going_in) feed(at(pass.x, far, pass.z), plunge_feed);
-  feed(at(pass.x, outside_front, pass.z), pass.feed);
-  rapid(at(pass.x, outside_front, ctx.safe_z));
+  if (!cut_going_in) feed(at(own, far, pass.z), plunge_feed);
+  feed(at(own, outside_front, pass.z), pass.feed);
+  rapid(at(own, outside_front, ctx.safe_z));
 }
 
 }  // namespace dovetailor::detail

@@ -87,12 +87,6 @@ void check_job(const PlanContext& ctx) {
   const auto& d = job.dovetail;
   const auto& s = ctx.target;
   const SourcePlace where{job.source};
-  if (std::abs(ctx.cutter.angle - d.angle) > 0.1)
-    throw InputError(
-        fmt::format("the dovetail cutter T{} is {:g} deg but the dovetail is {:g} deg; "
-                    "the flank would come out at the cutter's angle",
-                    ctx.cutter.number, ctx.cutter.angle, d.angle),
-        where, "tool.angle");
   if (d.ends == Ends::Closed)
     throw InputError(
         "a dovetail closed at both ends cannot be undercut: the cutter cannot plunge. "
@@ -141,6 +135,30 @@ void check_job(const PlanContext& ctx) {
                                  "moves in steps of {}); give a band of at least {}",
                                  ctx.show(band), ctx.show(resolution), ctx.show(2 * resolution)),
                      where, "dovetail.tolerance");
+}
+
+// Angles closer than this count as equal: a file's 59.9 and 60 differ by
+// 0.1000000000000014 in binary.
+constexpr double angle_slack = 1e-9;
+
+// The cutter's angle less the dovetail's, rounded for messages.
+double angle_difference(const Tool& cutter, const DovetailSpec& d) {
+  return std::round((cutter.angle - d.angle) * 1e6) / 1e6;
+}
+
+// Refuses a dovetail cutter whose angle differs from the dovetail's by more
+// than cutter_angle_tolerance either way: its cone would cut the flank at its
+// own angle, and no setting of the machine puts that right.
+void check_cutter_angle(const Job& job, const Tool& cutter) {
+  const double diff = angle_difference(cutter, job.dovetail);
+  if (std::abs(diff) <= cutter_angle_tolerance + angle_slack) return;
+  throw InputError(
+      fmt::format("the dovetail cutter T{} is {:g} deg and the dovetail {:g} deg: {:g} deg {}, "
+                  "more than the {:g} deg allowed either way. Its cone cuts the flank at its own "
+                  "angle; use a cutter of the dovetail's angle",
+                  cutter.number, cutter.angle, job.dovetail.angle, std::abs(diff),
+                  diff > 0 ? "steeper" : "shallower", cutter_angle_tolerance),
+      {job.source}, "tool.angle");
 }
 
 Checkpoint make_checkpoint(const PlanContext& ctx, const Plan& plan, std::string name,
@@ -196,16 +214,34 @@ std::vector<const Pass*> all_passes(const Plan& plan) {
   return out;
 }
 
-Plan plan(const Job& job) {
-  if (job.part.material.empty())
+DovetailSpec dovetail_as_cut(const Job& job) {
+  DovetailSpec spec = job.dovetail;
+  const auto& number = job.strategy.dovetail_cutter;
+  const Tool* cutter = number ? find_tool(job, *number) : first_tool(job, ToolKind::Dovetail);
+  if (!cutter || cutter->kind != ToolKind::Dovetail) return spec;
+  const double diff = cutter->angle - spec.angle;
+  if (diff == 0 || std::abs(diff) > cutter_angle_tolerance + angle_slack) return spec;
+  spec.width = design_width_bottom(job.dovetail);
+  spec.width_at = WidthAt::Bottom;
+  spec.angle = cutter->angle;
+  return spec;
+}
+
+Plan plan(const Job& given) {
+  if (given.part.material.empty())
     throw InputError(
         "the planner needs the work material for speeds, feeds and cutting forces; "
         "add [part] material = \"...\"",
-        {job.source}, "part.material");
-  const Material& material = find_material(builtin_materials(), job.part.material, {job.source});
-  const Tool& end_mill = pick_tool(job, ToolKind::EndMill, job.strategy.end_mill, "end mill");
+        {given.source}, "part.material");
+  const Material& material =
+      find_material(builtin_materials(), given.part.material, {given.source});
+  const Tool& end_mill = pick_tool(given, ToolKind::EndMill, given.strategy.end_mill, "end mill");
   const Tool& cutter =
-      pick_tool(job, ToolKind::Dovetail, job.strategy.dovetail_cutter, "dovetail cutter");
+      pick_tool(given, ToolKind::Dovetail, given.strategy.dovetail_cutter, "dovetail cutter");
+  check_cutter_angle(given, cutter);
+  // Everything below plans the dovetail the cutter will really cut.
+  Job job = given;
+  job.dovetail = dovetail_as_cut(given);
   const Units u = job.units;
   std::vector<std::string> warnings;
   PlanContext ctx{.job = job,
@@ -249,6 +285,19 @@ Plan plan(const Job& job) {
   const double pin = job.gauge ? job.gauge->pin_diameter : 0;
   result.final_reading = reading_of(ctx.target, pin);
   if (!job.dovetail.mate_derivation.empty()) result.notes.push_back(job.dovetail.mate_derivation);
+  if (job.dovetail.angle != given.dovetail.angle) {
+    const DovetailSection nominal = section_of(given.dovetail);
+    const double diff = angle_difference(cutter, given.dovetail);
+    result.notes.push_back(fmt::format(
+        "T{} is {:g} deg, {:g} deg {} than the dovetail's {:g} deg (within {:g} deg): the flanks "
+        "are planned at {:g} deg. The base-plane width {} is held (the cutter's tip corner sets "
+        "it); the top-plane width comes out {} ({} at {:g} deg), and the pin readings are those "
+        "of {:g} deg flanks.",
+        cutter.number, cutter.angle, std::abs(diff), diff > 0 ? "steeper" : "shallower",
+        given.dovetail.angle, cutter_angle_tolerance, cutter.angle,
+        ctx.show(ctx.target.width_bottom()), ctx.show(ctx.target.width_top()),
+        ctx.show(nominal.width_top()), given.dovetail.angle, cutter.angle));
+  }
   result.operations = detail::rough_operations(ctx);
   result.operations.push_back(detail::undercut_operation(ctx));
   const Operation& undercut = result.operations.back();

@@ -53,12 +53,20 @@ bool engages_plus_x(const PlanContext& ctx, Side side);
 Along direction_for(bool plus_x_engaged, MillingMode mode);
 MillingMode mode_of(bool plus_x_engaged, Along along);
 
+// A line along the slide the tool axis runs on: x = x + slope * y.
+struct AxisLine {
+  double x = 0;  // at y = 0
+  double slope = 0;
+};
+
 // Fills pass.moves: from the safe height outside the stock, down outside the
 // work, the cut along Y (respecting the job's ends), out and up again.
-// `previous_x` is where the last pass on this line ran (front-open ends may
-// run in there and cut on the way out).
+// `previous` is the line the last pass at this level ran on, already cleared:
+// with a front-open dovetail a pass that cuts feeding -Y runs in there, steps
+// over at the closed end and cuts on the way out; one that cuts feeding +Y
+// cuts on the way in.
 void add_moves(const PlanContext& ctx, Pass& pass, double tool_radius, Along along,
-               double previous_x, double plunge_feed);
+               AxisLine previous, double plunge_feed);
 
 // End-mill roughing (slot or shoulders, and a square wall's finish).
 std::vector<Operation> rough_operations(PlanContext& ctx);

@@ -55,13 +55,14 @@ Operation start_operation(const PlanContext& ctx, OperationKind kind, std::strin
   op.finish_feed = data.feed;
   op.entry = ctx.job.dovetail.ends == Ends::FrontOpen
                  ? "enters at depth from the open front end, feeding along Y; leaves upward at "
-                   "the closed end"
+                   "the closed end, or steps over there and cuts on the way out"
                  : "enters at depth from the front end, feeding along Y; leaves past the far end";
   return op;
 }
 
+// `previous_x`: the line the last pass at this level ran on (see add_moves).
 Pass make_pass(PlanContext& ctx, const Operation& op, std::optional<Side> side, double x, double z,
-               double radial, double stock_left, Along along, bool plus_x) {
+               double radial, double stock_left, Along along, bool plus_x, double previous_x) {
   Pass p;
   p.number = ctx.next_pass++;
   p.tool = op.tool;
@@ -75,7 +76,7 @@ Pass make_pass(PlanContext& ctx, const Operation& op, std::optional<Side> side, 
   p.feed = op.feed;
   p.rpm = op.rpm;
   p.mode = side ? mode_of(plus_x, along) : MillingMode::Both;
-  add_moves(ctx, p, ctx.end_mill.diameter / 2, along, x, op.feed / 2);
+  add_moves(ctx, p, ctx.end_mill.diameter / 2, along, {previous_x, 0}, op.feed / 2);
   return p;
 }
 
@@ -97,6 +98,7 @@ Operation rough_slot(PlanContext& ctx) {
   }
   double previous = 0;
   for (double z : levels_down_to(-s.depth + ctx.floor_allowance, axial_step(ctx, ctx.end_mill))) {
+    double last_left = middle, last_right = middle;  // lines cleared at this level
     for (double x : xs) {
       const std::optional<Side> side =
           x > middle + 1e-9 ? std::optional(Side::Right)
@@ -105,8 +107,10 @@ Operation rough_slot(PlanContext& ctx) {
       const Along along = side ? direction_for(plus_x, ctx.mode) : Along::Forward;
       const double wall_stock = side == Side::Right ? right_wall + ctx.rough_allowance - (x + r)
                                                     : (x - r) - (left_wall - ctx.rough_allowance);
+      double& last = side == Side::Left ? last_left : last_right;
       Pass p = make_pass(ctx, op, side, x, z, side ? std::abs(x - middle) : 2 * r, wall_stock,
-                         along, plus_x);
+                         along, plus_x, last);
+      last = x;
       p.axial_depth = z - previous;
       op.passes.push_back(std::move(p));
     }
@@ -144,11 +148,13 @@ Operation rough_shoulders(PlanContext& ctx) {
     const Along along = direction_for(plus_x, ctx.mode);
     double previous = 0;
     for (double z : levels) {
+      double line = right ? edge + r + ctx.clearance : edge - r - ctx.clearance;  // outside
       for (int i = n; i >= 0; --i) {
         const double x = last + (right ? 1 : -1) * spacing * i;
         const double radial = i == n ? std::min(step, reach) : spacing;
         const double left_on_wall = (right ? x - r - wall : wall - (x + r)) + ctx.rough_allowance;
-        Pass p = make_pass(ctx, op, side, x, z, radial, left_on_wall, along, plus_x);
+        Pass p = make_pass(ctx, op, side, x, z, radial, left_on_wall, along, plus_x, line);
+        line = x;
         p.axial_depth = previous - z;
         op.passes.push_back(std::move(p));
       }
@@ -177,8 +183,10 @@ std::optional<Operation> finish_square_wall(PlanContext& ctx) {
                                  ctx.rough_allowance);
   const bool plus_x = tool_inside == right;
   const Along along = direction_for(plus_x, ctx.mode);
+  // The roughing ran on the line the rough allowance away from the wall.
+  const double rough_line = x + (plus_x ? -1 : 1) * ctx.rough_allowance;
   for (double z : levels_down_to(-s.depth, axial_step(ctx, ctx.end_mill))) {
-    Pass p = make_pass(ctx, op, square, x, z, ctx.rough_allowance, 0, along, plus_x);
+    Pass p = make_pass(ctx, op, square, x, z, ctx.rough_allowance, 0, along, plus_x, rough_line);
     p.role = PassRole::Finish;
     p.axial_depth = s.depth;
     op.passes.push_back(std::move(p));

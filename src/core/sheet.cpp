@@ -28,17 +28,19 @@ std::string tool_words(const Tool& t, const Show& s) {
                      s.len(t.diameter), t.angle, t.flutes, s.len(t.neck_diameter), material);
 }
 
-// The cutting move's direction along the slide: the feed move that runs
-// furthest in Y.
+// The cutting move's direction along the slide: the first feed move along Y
+// on the pass's own line (a front-open pass that cuts on its way out runs in
+// on the line before it).
 std::string feed_direction(const Pass& p) {
-  Point3 from{};
-  double best = 0;
-  for (const auto& m : p.moves) {
-    const double dy = m.to.y - from.y;
-    if (m.kind == MoveKind::Feed && std::abs(dy) > std::abs(best)) best = dy;
-    from = m.to;
+  for (std::size_t i = 1; i < p.moves.size(); ++i) {
+    const auto& a = p.moves[i - 1].to;
+    const auto& b = p.moves[i].to;
+    const bool on_line = std::abs(a.x - p.x_at(a.y)) < 1e-9 && std::abs(b.x - p.x_at(b.y)) < 1e-9 &&
+                         std::abs(a.z - p.z) < 1e-9 && std::abs(b.z - p.z) < 1e-9;
+    if (p.moves[i].kind == MoveKind::Feed && on_line && std::abs(b.y - a.y) > 1e-9)
+      return b.y > a.y ? "+Y" : "-Y";
   }
-  return best >= 0 ? "+Y" : "-Y";
+  return "+Y";
 }
 
 // How the dial reaches one setting from the last: the reading, marked '*'
