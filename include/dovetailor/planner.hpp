@@ -19,13 +19,15 @@ namespace dovetailor {
 //     walls alike (CNC) or one wall only (manual), within the same step;
 //     passes toward a tapered gib's flank turn from the straight wall to
 //     the taper a share at a time, so no pass cuts more than the step;
-//  Every cut along the slide mills the job's way (climb by default on a
-//  CNC, always conventional on a manual machine, M3); the end mill's first
-//  pass into solid stock down a female's slot is the one full-width cut.
 //  3. finishing per flank: an optional semi-finish pass to a light last cut,
 //     the finishing pass, and a spring pass;
 //  4. checkpoints (after roughing, before finishing, after finishing) with the
 //     pin reading to expect and the correction rule.
+// Every cut along the slide mills the job's way (climb by default on a CNC,
+// always conventional on a manual machine; the spindle runs M3). On a manual
+// machine the one cut that takes both sides is the end mill's first pass into
+// solid stock down a female's slot, a full-width slot; a CNC's dovetail
+// cutter may also take both walls of a narrow slot on its first pass.
 // Throws InputError, naming the job key, for a job that cannot be cut with
 // the listed tools (cutter angle differs by more than cutter_angle_tolerance,
 // cutter too large or too small for the space, a first pass down the slot or
