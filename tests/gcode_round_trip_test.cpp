@@ -115,5 +115,29 @@ TEST(gcode_round_trip, random_jobs_for_every_post_check_clean) {
   EXPECT_GT(tried, cases * 2 / 3);
 }
 
+// Females whose roughed slot is narrower than the dovetail cutter, on CNC and
+// manual machines: the first pass down the slot cuts its walls (both alike,
+// or one on a manual mill).
+TEST(gcode_round_trip, random_narrow_slot_jobs_for_every_post_check_clean) {
+  std::mt19937_64 rng(20261206);
+  int tried = 0;
+  const int cases = testing::random_cases(100);
+  for (int i = 0; i < cases; ++i) {
+    const Job job =
+        testing::random_job(rng, {.type = DovetailType::Female,
+                                  .machine = i % 2 ? MachineKind::Manual : MachineKind::Cnc,
+                                  .narrow_slot = true});
+    try {
+      (void)plan(job);
+    } catch (const InputError&) {
+      continue;
+    }
+    ++tried;
+    for (const char* post : posts)
+      EXPECT_TRUE(round_trip(job, finer(load_post(post)), 3)) << "job " << i << " / " << post;
+  }
+  EXPECT_GT(tried, cases / 4);
+}
+
 }  // namespace
 }  // namespace dovetailor
