@@ -307,6 +307,7 @@ struct CutAlongY {
   const Tool* tool = nullptr;
   double feed_dy = 0;  // direction of the feed along the slide
   SectionRows::Cut cut;
+  bool own_line = false;  // on the pass's own line, not a run-in on the line before
 };
 
 // Every feed move along Y of the plan that crosses the station at y, in
@@ -326,7 +327,8 @@ std::vector<CutAlongY> cuts_at(const Job& job, const Plan& p, double y) {
         continue;
       if (y < std::min(a.y, b.y) || y > std::max(a.y, b.y)) continue;
       const double x = a.x + (b.x - a.x) * (y - a.y) / (b.y - a.y);
-      out.push_back({pass, tool, b.y - a.y, rows.cut(*tool, x, a.z, skin)});
+      out.push_back({pass, tool, b.y - a.y, rows.cut(*tool, x, a.z, skin),
+                     std::abs(x - pass->x_at(y)) < 1e-9});
     }
   }
   return out;
@@ -398,6 +400,10 @@ TEST(planner, every_manual_cut_is_conventional_over_random_jobs_of_every_kind) {
       for (double y : stations_of(job))
         for (const CutAlongY& cut : cuts_at(job, p, y)) {
           if (cut.tool->kind == ToolKind::EndMill && cut.cut.full_width) continue;
+          // The plan says so too, where the pass takes a side on its own line.
+          if (cut.own_line && std::max(cut.cut.minus_x, cut.cut.plus_x) > 1e-3) {
+            EXPECT_EQ(cut.pass->mode, MillingMode::Conventional) << "pass " << cut.pass->number;
+          }
           ASSERT_TRUE(conventional(cut))
               << "pass " << cut.pass->number << " T" << cut.tool->number << " at y " << y
               << ": cuts " << cut.cut.minus_x << " mm on -X, " << cut.cut.plus_x
