@@ -124,6 +124,20 @@ TEST(checker, planned_program_of_a_cutter_a_tenth_of_a_degree_off_checks_clean) 
   }
 }
 
+TEST(checker, planned_random_jobs_with_a_cutter_a_little_off_angle_check_clean) {
+  std::mt19937_64 rng(20261208);
+  for (int i = 0; i < testing::random_cases(20); ++i) {
+    SCOPED_TRACE(i);
+    Job job = testing::random_job(rng, {.cutter_off_angle = true});
+    try {
+      (void)plan(job);
+    } catch (const InputError&) {
+      continue;
+    }
+    expect_round_trip(job);
+  }
+}
+
 // Female jobs whose roughed slot is narrower than the dovetail cutter: its
 // first pass down the slot cuts the walls, on one wall only on a manual mill.
 TEST(checker, planned_random_narrow_slot_jobs_check_clean) {

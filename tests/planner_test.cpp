@@ -518,6 +518,41 @@ TEST(planner, first_pass_down_a_narrow_slot_is_planned_within_the_step) {
   }
 }
 
+// Random jobs whose cutter is up to 0.1 deg off the dovetail's angle: the
+// plan is for the cutter's angle with the design base-plane width held, and
+// every checkpoint reads by the rolls formula at that angle (Machinery's
+// Handbook, measuring dovetail slides with rolls: M = W + D (1 + cot(a/2)),
+// P = W - D (1 + cot(a/2)); half of D k with one pin).
+TEST(planner, random_cutters_a_little_off_angle_give_the_rolls_readings_of_their_angle) {
+  std::mt19937_64 rng(20261207);
+  int planned = 0;
+  for (int i = 0; i < testing::random_cases(300); ++i) {
+    const Job job = testing::random_job(rng, {.cutter_off_angle = true});
+    Plan p;
+    try {
+      p = plan(job);
+    } catch (const InputError&) {
+      continue;
+    }
+    ++planned;
+    const double a = job.tools[1].angle;
+    ASSERT_LE(std::abs(a - job.dovetail.angle), 0.1);
+    EXPECT_EQ(p.target.angle, a);
+    const bool male = job.dovetail.type == DovetailType::Male;
+    const int n = job.dovetail.sides == AngledSides::Both ? 2 : 1;
+    double w = design_width_bottom(job.dovetail);
+    if (job.dovetail.gib) w += (male ? -1 : 1) * job.dovetail.gib->thickness / std::sin(radians(a));
+    EXPECT_NEAR(p.target.width_bottom(), w, 1e-9);
+    const double k = 1 + 1 / std::tan(radians(a / 2));
+    const double d = job.gauge->pin_diameter;
+    for (const auto& c : p.checkpoints) {
+      const double width_now = w + (male ? 1 : -1) * n * c.remaining_per_flank;
+      EXPECT_NEAR(c.expected.value, width_now + (male ? 1 : -1) * n * d / 2 * k, 1e-9);
+    }
+  }
+  EXPECT_GT(planned, testing::random_cases(300) / 2);
+}
+
 // ---- impossible jobs: each gives its own message naming the key ----
 
 Job base_job() { return sample("fixture-slide-female"); }

@@ -26,6 +26,9 @@ struct RandomJobOptions {
   // down the slot cuts into the slot's walls (the base-plane width stays at
   // least the cutter's diameter, so the cutter can finish each flank).
   bool narrow_slot = false;
+  // The dovetail cutter's angle off the dovetail's by up to 0.1 deg either
+  // way (drawn last, after everything else).
+  bool cutter_off_angle = false;
 };
 
 inline Job random_job(std::mt19937_64& rng, const RandomJobOptions& options = {}) {
@@ -110,6 +113,7 @@ inline Job random_job(std::mt19937_64& rng, const RandomJobOptions& options = {}
   job.gauge = g;
   job.machine.kind = unit(rng) < 0.3 ? MachineKind::Manual : MachineKind::Cnc;
   job.machine.kind = options.machine.value_or(job.machine.kind);
+  if (options.cutter_off_angle) job.tools[1].angle += between(-0.1, 0.1);
   return job;
 }
 

@@ -291,12 +291,14 @@ Plan plan(const Job& given) {
     result.notes.push_back(fmt::format(
         "T{} is {:g} deg, {:g} deg {} than the dovetail's {:g} deg (within {:g} deg): the flanks "
         "are planned at {:g} deg. The base-plane width {} is held (the cutter's tip corner sets "
-        "it); the top-plane width comes out {} ({} at {:g} deg), and the pin readings are those "
+        "it){}; the top-plane width comes out {} ({} at {:g} deg), and the pin readings are those "
         "of {:g} deg flanks.",
         cutter.number, cutter.angle, std::abs(diff), diff > 0 ? "steeper" : "shallower",
         given.dovetail.angle, cutter_angle_tolerance, cutter.angle,
-        ctx.show(ctx.target.width_bottom()), ctx.show(ctx.target.width_top()),
-        ctx.show(nominal.width_top()), given.dovetail.angle, cutter.angle));
+        ctx.show(design_width_bottom(given.dovetail)),
+        job.dovetail.gib ? ", the gib's allowance taken at the cutter's angle" : "",
+        ctx.show(ctx.target.width_top()), ctx.show(nominal.width_top()), given.dovetail.angle,
+        cutter.angle));
   }
   result.operations = detail::rough_operations(ctx);
   result.operations.push_back(detail::undercut_operation(ctx));
