@@ -571,7 +571,8 @@ class JobReader {
   }
 
   std::vector<std::string> pin_problems_for(const DovetailSection& section, double corner_radius) {
-    return pin_problems(section, job_.gauge->pin_diameter, corner_radius, job_.units);
+    return pin_problems(section, job_.gauge->pin_diameter, corner_radius, job_.units,
+                        stock_faces(job_));
   }
 
   std::string file_;
