@@ -274,10 +274,11 @@ TEST(planner, refuses_a_tolerance_finer_than_the_machine_steps) {
   expect_input_error([&] { plan(job); }, {"dovetail.tolerance", "finer than the machine"});
 }
 
-TEST(planner, refuses_an_unknown_material_listing_the_known_ones) {
+TEST(planner, refuses_an_unknown_material_naming_the_nearest) {
   Job job = base_job();
-  job.part.material = "unobtainium";
-  expect_input_error([&] { plan(job); }, {"part.material", "unobtainium", "cast iron"});
+  job.part.material = "cast irn";
+  expect_input_error([&] { plan(job); }, {"part.material", "cast irn", "nearest names it knows",
+                                          "cast iron (grey-cast-iron)", "dovetailor materials"});
 }
 
 TEST(planner, refuses_open_ends_on_a_short_dovetail) {
