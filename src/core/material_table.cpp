@@ -330,8 +330,8 @@ const Material& find_material(const MaterialTable& table, std::string_view name,
   const auto what = name.empty() ? std::string("no material given")
                                  : fmt::format("unknown material \"{}\"", name);
   throw InputError(what + "; the nearest names it knows:" + nearest +
-                       "\n`dovetailor materials` lists every name; case, spaces, hyphens, the "
-                       "order of the words\nand tempers like -T6 do not matter",
+                       "\n`dovetailor materials` lists every name (case, spaces, hyphens, word "
+                       "order\nand tempers like -T6 do not matter)",
                    where, "part.material");
 }
 
