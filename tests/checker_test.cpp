@@ -415,6 +415,22 @@ TEST(checker, a_hand_written_program_reads_the_same_in_every_frame) {
   }
 }
 
+TEST(checker, the_job_files_program_table_sets_the_frame) {
+  // The corner frame given in the job file rather than in code: the same
+  // findings as the job-frame program.
+  const std::string text = read_source_file("samples/stop-block-male.toml") +
+                           "\n[program]\nzero = [-45, 0, 0]\ng28 = [0, 0, 0]\n"
+                           "[program.offsets]\ng54 = [-400, -200, -300]\n";
+  const Job job = read_job(text, "corner.toml");
+  StringProgramSource source(read_source_file("tests/programs/frame-corner.ngc"), "corner.ngc");
+  const CheckReport r = check(source, job);
+  const CheckReport reference = check_frame_program("frame-job.ngc", {});
+  EXPECT_EQ(r.counts, reference.counts) << describe(r);
+  ASSERT_EQ(r.findings.size(), reference.findings.size());
+  for (std::size_t i = 0; i < r.findings.size(); ++i)
+    EXPECT_EQ(r.findings[i].text, reference.findings[i].text);
+}
+
 TEST(checker, a_wrong_frame_shows_as_different_findings) {
   // The corner program checked as if it were in the job's frame cuts 45 mm
   // to the right: the test above would see it.
