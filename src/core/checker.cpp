@@ -310,9 +310,9 @@ CheckReport Checker::run(ProgramSource& program) {
                    .line = event->line,
                    .amount = static_cast<double>(missing->tool),
                    .text = fmt::format("{}{} names T{}, which the job does not list in [[tool]]: "
-                                       "its {} is taken as zero and its moves cannot be checked",
+                                       "taken as zero {}; moves with T{} cannot be checked",
                                        missing->word, missing->tool, missing->tool,
-                                       missing->word == 'D' ? "radius" : "length offset")});
+                                       missing->word == 'D' ? "radius" : "length", missing->tool)});
     } else if (std::holds_alternative<Stop>(event->body)) {
       if (event->state.selected_tool != event->state.tool)
         hand_changed_ = event->state.selected_tool;
