@@ -209,8 +209,10 @@ std::string format_check_report(const CheckReport& r) {
     // The stations go on the heading when they fit in 80 columns, else
     // they open the words below it.
     const bool at_fits = at.empty() || head.size() + 2 + at.size() <= 80;
-    out += at_fits && !at.empty() ? head + ", " + at + "\n" : head + "\n";
-    std::string text = at_fits ? g.text : at + ": " + g.text;
+    out += head;
+    if (at_fits && !at.empty()) out += fmt::format(", {}", at);
+    out += "\n";
+    std::string text = at_fits ? g.text : fmt::format("{}: {}", at, g.text);
     if (g.count > 1) text += " (the first";
     if (g.lines.size() > 1) {
       text += "; lines";
