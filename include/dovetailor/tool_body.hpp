@@ -79,6 +79,11 @@ struct ToolBodyOptions {
 // D/2, so a pin-measured flank is where a sharp cutter would put it), then
 // the neck of the neck diameter, then the shank.
 //
+// Drill: a cone of the point angle (included) from the point on the axis up
+// to the diameter, then the diameter to the flute length. Chamfer mill: a
+// cone of its included angle from the tip diameter up to the diameter, then
+// the diameter to the flute length. Both then the shank.
+//
 // Defaults, where the tool data has no value:
 //  - shank diameter: the tool's diameter (for a dovetail cutter, its large
 //    diameter: on the safe side, a touch it reports means "give the shank");

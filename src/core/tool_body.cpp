@@ -97,6 +97,20 @@ ToolBody tool_body(const Tool& tool, const ToolBodyOptions& options) {
     auto profile = tip_profile(big, 90, tool.corner_radius, options.chord_tolerance);
     profile.push_back({flutes_top, big});
     body.sections.push_back({BodyPart::Flutes, std::move(profile)});
+  } else if (tool.kind == ToolKind::Drill || tool.kind == ToolKind::ChamferMill) {
+    // A cone about the axis from the tip's radius (0 for a drill's point)
+    // widening at half the included angle up to the diameter, then straight
+    // to the top of the flutes.
+    const bool drill = tool.kind == ToolKind::Drill;
+    const double included = drill ? tool.point_angle : tool.angle;
+    assert(included > 0 && included < 180);
+    const double tip = drill ? 0 : tool.tip_diameter / 2;
+    const double cone = (big - tip) / std::tan(radians(included / 2));
+    std::vector<ProfilePoint> profile{{0, 0}};
+    if (tip > 0) profile.push_back({0, tip});
+    profile.push_back({std::min(cone, flutes_top), big});
+    if (flutes_top > cone) profile.push_back({flutes_top, big});
+    body.sections.push_back({BodyPart::Flutes, std::move(profile)});
   } else {
     assert(tool.angle > 0 && tool.angle < 90);
     const double cot_a = 1 / std::tan(radians(tool.angle));
