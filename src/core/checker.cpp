@@ -61,7 +61,7 @@ PlannerRules planner_rules(const Job& job) {
 StationTarget target_at(const Job& job, double y, int id, double allowance) {
   StationTarget t;
   t.id = id;
-  t.section = section_at(job.dovetail, y);
+  t.section = section_at(aimed_spec(job.dovetail), y);
   t.allowance = allowance;
   t.part = SectionRegion::from_ring(
       part_outline(t.section, stock_left_x(job), stock_right_x(job), job.stock.height));
