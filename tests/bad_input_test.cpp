@@ -308,6 +308,28 @@ std::vector<Case> catalogue() {
   c.push_back(program_case("program_feed_without_f", "G21 G94\nG1 X10\n", {"part.ngc:2", "F"}));
   c.push_back(
       {"program_without_job", {{"part.ngc", "G21\nM2\n"}}, {"check", "part.ngc"}, {"--job"}});
+  // ---- the program's frame (job [program] table, check flags) ----
+  c.push_back(job_case("program_slide_word", sample() + "[program]\nslide = \"z\"\n",
+                       {"job.toml:", "program.slide"}));
+  c.push_back(job_case("program_zero_two_numbers", sample() + "[program]\nzero = [1, 2]\n",
+                       {"job.toml:", "program.zero"}));
+  c.push_back(job_case("program_offset_nan", sample() + "[program.offsets]\ng54 = [nan, 0, 0]\n",
+                       {"job.toml:", "program.offsets.g54"}));
+  c.push_back(job_case("program_unknown_system", sample() + "[program.offsets]\ng60 = [0, 0, 0]\n",
+                       {"job.toml:", "program.offsets.g60"}));
+  c.push_back({"check_offset_garbage",
+               {{"job.toml", male}, {"part.ngc", "G21\nM2\n"}},
+               {"check", "part.ngc", "--job", "job.toml", "--offset", "G54=X1,X2"},
+               {"--offset"}});
+  c.push_back({"check_home_not_a_number",
+               {{"job.toml", male}, {"part.ngc", "G21\nM2\n"}},
+               {"check", "part.ngc", "--job", "job.toml", "--home", "G28=Xabc"},
+               {"--home", "not a number"}});
+  c.push_back({"check_zero_huge",
+               {{"job.toml", male}, {"part.ngc", "G21\nM2\n"}},
+               {"check", "part.ngc", "--job", "job.toml", "--zero=1e300,0,0"},
+               {"--zero"}});
+  c.push_back(program_case("program_g10_without_p", "G21\nG10 L2 X0\n", {"part.ngc:2", "G10"}));
   // ---- command lines ----
   c.push_back({"pins_without_anything", {}, {"pins"}, {"--type", "missing"}});
   c.push_back(

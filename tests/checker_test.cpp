@@ -305,6 +305,243 @@ TEST(checker, a_gouge_by_a_split_slanted_pass_names_the_move_at_each_station) {
   EXPECT_EQ(lines, (std::vector<int>{7, 9, 10, 12, 14})) << describe(r);
 }
 
+// --- programs written elsewhere: frames, work offsets, G92, G10, G28, G53 ---
+//
+// tests/programs/frame-*.ngc are one hand-written program for the
+// stop-block rail, line for line the same moves, written in six frames (the
+// five others turned out of frame-job.ngc once by the rules below, outside
+// the project's code, and reviewed by eye). The
+// meaning of each word, read from The NIST RS274NGC Interpreter, Version 3
+// (Kramer, Proctor, Messina, NISTIR 6556, 2000):
+//  - G54 (section on coordinate systems): the first of nine work systems,
+//    its origin in parameters #5221-#5223 (from memory), X Y Z measured from
+//    it; machine = work + origin.
+//  - G55, G56 (same section): systems 2 and 3, origins at #5241.. and #5261..
+//    (#5221 + 20 (n - 1), from memory).
+//  - G92 (section on G92): the current point gets the given coordinates by
+//    an offset added to every system, kept in #5211-#5213 (from memory).
+//  - G10 L2 P2 (section on G10): system 2's origin set to the axis words, in
+//    machine coordinates. G10 L20 P3: a later extension to RS274NGC (from
+//    memory): system 3's origin set so the current point has the given
+//    coordinates.
+//  - G28 (section on G28/G30): rapid to the intermediate point (G91 G28 Z0:
+//    the current point), then to the home position of #5161-#5163, machine
+//    coordinates, all axes.
+//  - G53 (section on G53): this block only, the axis words are machine
+//    coordinates.
+//  - G17 G2 (section on arcs): clockwise seen from +Z; G18 G2 clockwise seen
+//    from +Y, G19 G2 from +X (the plane's normal).
+// The frames, and what the checker is told about each (job units, mm):
+//  - job: zero at the job's own zero; nothing to say.
+//  - corner, g92, g10-l2, g10-l20: G54 at the front-left top corner of the
+//    stock (job x = -45), G54 origin at machine (-400, -200, -300), G28 home
+//    at machine zero, which is job (355, 200, 300).
+//  - slide-x: G54 at the front-right top corner (job x = 45), the slide along
+//    the program's +X (program Y runs from the right face leftward), G54
+//    origin at machine (-500, -250, -280), G28 home at machine (-300, -560,
+//    20): the same job point (355, 200, 300).
+struct FrameCase {
+  const char* file;
+  ProgramSetup setup;
+};
+
+std::vector<FrameCase> frame_cases() {
+  ProgramSetup corner{.zero = {-45, 0, 0}};
+  corner.offsets[0] = Point3{-400, -200, -300};
+  corner.g28_home = Point3{0, 0, 0};
+  ProgramSetup slide_x{.zero = {45, 0, 0}, .slide = SlideAxis::PlusX};
+  slide_x.offsets[0] = Point3{-500, -250, -280};
+  slide_x.g28_home = Point3{-300, -560, 20};
+  return {{"frame-corner.ngc", corner},
+          {"frame-slide-x.ngc", slide_x},
+          {"frame-g92.ngc", corner},
+          {"frame-g10-l2.ngc", corner},
+          {"frame-g10-l20.ngc", corner}};
+}
+
+CheckReport check_frame_program(const std::string& file, const ProgramSetup& setup) {
+  Job job = sample("stop-block-male.toml");
+  job.program = setup;
+  StringProgramSource source(read_source_file("tests/programs/" + file), file);
+  return check(source, job);
+}
+
+TEST(checker, a_hand_written_program_reads_the_same_in_every_frame) {
+  const CheckReport reference = check_frame_program("frame-job.ngc", {});
+  // The reference itself: the G18 G2 ramp of line 40 dips 2 mm into the
+  // shelf at the station y = 80 (the finding's figure is the gouge's mean
+  // thickness, 2 area / perimeter, under the 2 mm at its deepest) (clockwise seen from +Y runs
+  // through the low side, NISTIR 6556 section on arcs); the low rapids of lines 14, 18, 29 and 33
+  // cross the stock 3 mm under the 5 mm safe height.
+  bool ramp = false;
+  for (const Finding& f : reference.findings)
+    ramp = ramp || (f.kind == FindingKind::Gouge && f.line == 40 && f.station_y &&
+                    std::fabs(*f.station_y - 80) < 1e-9 && f.amount > 1 && f.amount < 2.01);
+  EXPECT_TRUE(ramp) << describe(reference);
+  EXPECT_EQ(reference.count(FindingKind::RapidBelowSafeHeight), 4) << describe(reference);
+  EXPECT_EQ(reference.count(FindingKind::HomeNotGiven), 0);
+  ASSERT_EQ(reference.stations.size(), 5u);
+  for (const FrameCase& c : frame_cases()) {
+    SCOPED_TRACE(c.file);
+    const CheckReport r = check_frame_program(c.file, c.setup);
+    ASSERT_EQ(r.findings.size(), reference.findings.size()) << describe(r);
+    for (std::size_t i = 0; i < r.findings.size(); ++i) {
+      const Finding& a = r.findings[i];
+      const Finding& b = reference.findings[i];
+      EXPECT_EQ(a.kind, b.kind) << i;
+      EXPECT_EQ(a.severity, b.severity) << i;
+      EXPECT_EQ(a.line, b.line) << i;
+      EXPECT_EQ(a.station_y.has_value(), b.station_y.has_value()) << i;
+      if (a.station_y && b.station_y) {
+        EXPECT_NEAR(*a.station_y, *b.station_y, 1e-9);
+      }
+      EXPECT_NEAR(a.amount, b.amount, 1e-6) << i;
+      EXPECT_EQ(a.text, b.text) << i;
+    }
+    EXPECT_EQ(r.counts, reference.counts);
+    ASSERT_EQ(r.stations.size(), reference.stations.size());
+    for (std::size_t i = 0; i < r.stations.size(); ++i) {
+      SCOPED_TRACE(i);
+      const auto& a = r.stations[i].measured;
+      const auto& b = reference.stations[i].measured;
+      ASSERT_EQ(a.reading.has_value(), b.reading.has_value());
+      if (a.reading) {
+        EXPECT_NEAR(a.reading->value, b.reading->value, 1e-6);
+      }
+      EXPECT_NEAR(a.width_bottom, b.width_bottom, 1e-6);
+      EXPECT_NEAR(a.depth, b.depth, 1e-6);
+      EXPECT_NEAR(material_area(r.stations[i]), material_area(reference.stations[i]), 1e-4);
+    }
+  }
+}
+
+TEST(checker, the_job_files_program_table_sets_the_frame) {
+  // The corner frame given in the job file rather than in code: the same
+  // findings as the job-frame program.
+  const std::string text = read_source_file("samples/stop-block-male.toml") +
+                           "\n[program]\nzero = [-45, 0, 0]\ng28 = [0, 0, 0]\n"
+                           "[program.offsets]\ng54 = [-400, -200, -300]\n";
+  const Job job = read_job(text, "corner.toml");
+  StringProgramSource source(read_source_file("tests/programs/frame-corner.ngc"), "corner.ngc");
+  const CheckReport r = check(source, job);
+  const CheckReport reference = check_frame_program("frame-job.ngc", {});
+  EXPECT_EQ(r.counts, reference.counts) << describe(r);
+  ASSERT_EQ(r.findings.size(), reference.findings.size());
+  for (std::size_t i = 0; i < r.findings.size(); ++i)
+    EXPECT_EQ(r.findings[i].text, reference.findings[i].text);
+}
+
+TEST(checker, a_wrong_frame_shows_as_different_findings) {
+  // The corner program checked as if it were in the job's frame cuts 45 mm
+  // to the right: the test above would see it.
+  const CheckReport reference = check_frame_program("frame-job.ngc", {});
+  const CheckReport wrong = check_frame_program("frame-corner.ngc", {});
+  EXPECT_NE(wrong.counts, reference.counts) << describe(wrong);
+}
+
+TEST(checker, g28_with_no_home_given_rises_straight_up_and_says_so) {
+  // G91 G28 Z0 at 3 mm deep, in front of the stock: without a home position
+  // the return goes straight up (a warning says so), not to work zero
+  // through the front face.
+  const Job job = sample("stop-block-male.toml");
+  const CheckReport r = check_text(
+      "G21 G90 G17\nT3 M6\nS2500 M3\nG0 X0 Y-20 Z5\nG1 Z-3 F500\nG91 G28 Z0\nG90\nM30\n", job);
+  EXPECT_EQ(r.count(FindingKind::HomeNotGiven), 1) << describe(r);
+  EXPECT_EQ(r.count(FindingKind::RapidThroughMaterial), 0) << describe(r);
+  EXPECT_EQ(r.count(FindingKind::Gouge), 0) << describe(r);
+  ASSERT_FALSE(r.findings.empty());
+  bool warned = false;
+  for (const Finding& f : r.findings)
+    warned = warned || (f.kind == FindingKind::HomeNotGiven && f.line == 6 &&
+                        f.severity == Severity::Warning);
+  EXPECT_TRUE(warned) << describe(r);
+}
+
+TEST(checker, a_length_offset_for_a_tool_not_in_the_job_is_a_finding_and_the_run_goes_on) {
+  // G43 H7 (NISTIR 6556, section on tool length offsets: H names the tool
+  // table entry) for a T7 the job does not list: unknown_tool at its line,
+  // and T3's gouge three lines later is still found.
+  const Job job = sample("stop-block-male.toml");
+  const CheckReport r = check_text(
+      "G21 G90 G17\nT3 M6\nS2500 M3\nG43 H7\nG0 X0 Y-20 Z5\nG1 Z-3 F500\nG1 Y180\nM30\n", job);
+  bool unknown = false, gouge = false;
+  for (const Finding& f : r.findings) {
+    unknown = unknown ||
+              (f.kind == FindingKind::UnknownTool && f.line == 4 && f.severity == Severity::Error);
+    gouge = gouge || (f.kind == FindingKind::Gouge && f.line == 7);
+  }
+  EXPECT_TRUE(unknown) << describe(r);
+  EXPECT_TRUE(gouge) << describe(r);
+}
+
+TEST(checker, a_drill_and_a_chamfer_mill_cut_their_cones) {
+  // A 10 mm drill with a 118 deg point, 4 mm into the right shoulder (x =
+  // 35, clear of the tongue) at the station y = 80: it takes a 10 mm wide
+  // hole of 4 - 3.0043 = 0.9957 mm at full width and the point's triangle
+  // below (r / tan 59 deg = 3.0043 mm tall; right-triangle trigonometry):
+  // 10 * 0.9957 + 5 * 3.0043 = 24.979 mm^2 from the section.
+  Job job = sample("stop-block-male.toml");
+  Tool drill;
+  drill.number = 7;
+  drill.kind = ToolKind::Drill;
+  drill.diameter = 10;
+  drill.flutes = 2;
+  drill.flute_length = 40;
+  job.tools.push_back(drill);
+  const CheckReport r =
+      check_text("G21 G90 G17\nT7 M6\nS1000 M3\nG0 X35 Y80 Z5\nG1 Z-4 F100\nG0 Z5\nM30\n", job, 5);
+  const double point = 5 / std::tan(radians(59));
+  EXPECT_NEAR(90 * 25 - material_area(r.stations[2]), 10 * (4 - point) + 5 * point, 0.01)
+      << describe(r);
+  EXPECT_EQ(r.count(FindingKind::UnknownTool), 0);
+  // A 90 deg chamfer mill, 12 mm across with a 2 mm tip, 3 mm down at the
+  // same place: a trapezoid 2 mm wide at the bottom, 8 mm at the top face,
+  // 3 mm tall: 15 mm^2.
+  Tool chamfer;
+  chamfer.number = 8;
+  chamfer.kind = ToolKind::ChamferMill;
+  chamfer.diameter = 12;
+  chamfer.flutes = 4;
+  chamfer.flute_length = 8;
+  chamfer.angle = 90;
+  chamfer.tip_diameter = 2;
+  job.tools.push_back(chamfer);
+  const CheckReport c =
+      check_text("G21 G90 G17\nT8 M6\nS1000 M3\nG0 X35 Y80 Z5\nG1 Z-3 F100\nG0 Z5\nM30\n", job, 5);
+  EXPECT_NEAR(90 * 25 - material_area(c.stations[2]), (2 + 8) / 2.0 * 3, 0.01) << describe(c);
+}
+
+TEST(checker, the_report_lists_errors_first_and_collapses_repeated_findings) {
+  const CheckReport r = check_frame_program("frame-job.ngc", {});
+  const std::string text = describe(r);
+  // Four low rapids, one line with their count and lines.
+  EXPECT_NE(text.find("  lines 14-33 warning rapid_below_safe_height, 4 times\n"),
+            std::string::npos)
+      << text;
+  bool grouped = false;
+  for (const FindingGroup& g : group_findings(r.findings))
+    grouped = grouped || (g.kind == FindingKind::RapidBelowSafeHeight && g.count == 4 &&
+                          g.lines == std::vector<int>{14, 18, 29, 33});
+  EXPECT_TRUE(grouped);
+  const auto findings = text.find("Findings");
+  const auto readings = text.find("Readings");
+  const std::string block = text.substr(findings, readings - findings);
+  const auto last_error = block.rfind(" error ");
+  const auto first_warning = block.find(" warning ");
+  ASSERT_NE(last_error, std::string::npos);
+  ASSERT_NE(first_warning, std::string::npos);
+  EXPECT_LT(last_error, first_warning) << block;
+  std::size_t start = 0;
+  while (start < text.size()) {
+    const auto end = text.find('\n', start);
+    EXPECT_LE(end - start, 80u) << text.substr(start, end - start);
+    start = end + 1;
+  }
+  // The groups in JSON keep the count; every finding is still listed.
+  const std::string json = check_json(r);
+  EXPECT_NE(json.find("\"finding_groups\""), std::string::npos);
+}
+
 TEST(checker, reader_errors_name_the_program_and_line) {
   const Job job = sample("stop-block-male.toml");
   StringProgramSource source("G21\nG1 X1 Q\n", "broken.ngc");

@@ -400,5 +400,99 @@ TEST(job_reader, refuses_a_fixture_with_a_reversed_span_or_unknown_key) {
       {"fixture[1]", "height"});
 }
 
+// [program]: the frame of a program written elsewhere (README, the job
+// file table). 1 in = 25.4 mm exactly (1959 inch).
+TEST(job_reader, reads_the_program_frame_offsets_and_homes) {
+  const Job job = read_job(valid + R"(
+[program]
+zero = [-1.5, 0, 0]
+slide = "+x"
+g28 = [0, 0, 0]
+[program.offsets]
+g54 = [-10, -5, -8]
+g59_3 = [1, 2, 3]
+)",
+                           "job.toml");
+  const ProgramSetup& p = job.program;
+  EXPECT_DOUBLE_EQ(p.zero.x, -38.1);
+  EXPECT_EQ(p.slide, SlideAxis::PlusX);
+  ASSERT_TRUE(p.g28_home);
+  EXPECT_EQ(*p.g28_home, (Point3{0, 0, 0}));
+  EXPECT_FALSE(p.g30_home);
+  ASSERT_TRUE(p.offsets[0]);
+  EXPECT_DOUBLE_EQ(p.offsets[0]->z, -8 * 25.4);
+  EXPECT_FALSE(p.offsets[1]);
+  ASSERT_TRUE(p.offsets[8]);
+  EXPECT_DOUBLE_EQ(p.offsets[8]->y, 2 * 25.4);
+  // Without the table: the job's own frame.
+  EXPECT_EQ(read_job(valid, "job.toml").program, ProgramSetup{});
+}
+
+TEST(job_reader, program_frame_keys_are_checked) {
+  expect_input_error([] { read_job(valid + "[program]\nslide = \"z\"\n", "job.toml"); },
+                     {"program.slide", "\"+x\", \"-x\", \"+y\", \"-y\""});
+  expect_input_error([] { read_job(valid + "[program]\nzero = [0, 0]\n", "job.toml"); },
+                     {"program.zero"});
+  expect_input_error([] { read_job(valid + "[program.offsets]\ng60 = [0, 0, 0]\n", "job.toml"); },
+                     {"program.offsets", "g60"});
+  expect_input_error([] { read_job(valid + "[program]\nhome = [0, 0, 0]\n", "job.toml"); },
+                     {"program", "home"});
+}
+
+TEST(job_reader, reads_drills_and_chamfer_mills) {
+  const Job job = read_job(valid + R"(
+[[tool]]
+number = 7
+kind = "drill"
+diameter = 0.25
+flutes = 2
+flute_length = 1.5
+material = "hss"
+[[tool]]
+number = 8
+kind = "chamfer-mill"
+diameter = 0.5
+tip_diameter = 0.05
+angle = 90
+flutes = 4
+flute_length = 0.5
+material = "carbide"
+)",
+                           "job.toml");
+  ASSERT_EQ(job.tools.size(), 4u);
+  EXPECT_EQ(job.tools[2].kind, ToolKind::Drill);
+  EXPECT_EQ(job.tools[2].point_angle, 118);  // the default, common practice
+  EXPECT_EQ(job.tools[3].kind, ToolKind::ChamferMill);
+  EXPECT_EQ(job.tools[3].angle, 90);
+  EXPECT_DOUBLE_EQ(job.tools[3].tip_diameter, 0.05 * 25.4);
+}
+
+TEST(job_reader, drill_and_chamfer_keys_belong_to_their_kinds) {
+  const std::string drill =
+      "[[tool]]\nnumber = 7\nkind = \"drill\"\ndiameter = 0.25\nflutes = 2\n"
+      "flute_length = 1.5\nmaterial = \"hss\"\n";
+  expect_input_error([&] { read_job(valid + drill + "tip_diameter = 0.1\n", "job.toml"); },
+                     {"tool[3].tip_diameter", "only to chamfer mills"});
+  expect_input_error([&] { read_job(valid + drill + "point_angle = 200\n", "job.toml"); },
+                     {"tool[3].point_angle"});
+  expect_input_error([&] { read_job(valid + drill + "angle = 60\n", "job.toml"); },
+                     {"tool[3].angle", "dovetail cutters and chamfer mills"});
+  expect_input_error(
+      [&] {
+        read_job(replace(valid, "flute_length = 1.0", "flute_length = 1.0\npoint_angle = 118"),
+                 "job.toml");
+      },
+      {"tool[1].point_angle", "only to drills"});
+  // A 0.5 in 90 deg chamfer mill with a sharp tip has a 0.25 in cone.
+  const std::string chamfer =
+      "[[tool]]\nnumber = 8\nkind = \"chamfer-mill\"\ndiameter = 0.5\nangle = 90\nflutes = 4\n"
+      "flute_length = 0.2\nmaterial = \"hss\"\n";
+  expect_input_error([&] { read_job(valid + chamfer, "job.toml"); },
+                     {"tool[3].flute_length", "shorter than the cone"});
+  expect_input_error(
+      [&] { read_job(replace(valid + chamfer, "angle = 90", "angle = 20"), "job.toml"); },
+      {"tool[3].angle"});
+}
+
 }  // namespace
 }  // namespace dovetailor

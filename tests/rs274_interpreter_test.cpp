@@ -188,8 +188,15 @@ TEST(rs274_interpreter, rejects_what_the_spec_forbids) {
       {"G0 M2 M30", "test.ngc:1:7", "M30", "same modal group", "3.4 M group 4"},
       {"G1.5 X1", "test.ngc:1:1", "G1.5", "not an RS-274/NGC G code", "3.4 table of G codes"},
       {"M99", "test.ngc:1:1", "M99", "not an RS-274/NGC M code", "3.4 table of M codes"},
-      {"G92 X0", "test.ngc:1:1", "G92", "not supported by the checker", "checker scope"},
-      {"G10 L2 P1 X0", "test.ngc:1:1", "G10", "not supported by the checker", "checker scope"},
+      {"G92", "test.ngc:1:1", "G92", "needs X, Y or Z", "G92 needs an axis word"},
+      {"G10 P1 X0", "test.ngc:1:1", "G10", "needs L2", "G10 needs L"},
+      {"G10 L1 P1 X0", "test.ngc:1:5", "L", "G10 L1 (tool table data) is not supported",
+       "checker scope: tools from the job"},
+      {"G10 L2 X0", "test.ngc:1:1", "G10", "needs P", "G10 L2 needs P"},
+      {"G10 L2 P10 X0", "test.ngc:1:8", "P", "1 (G54) to 9 (G59.3)", "G10 P is a system 1-9"},
+      {"G10 L2 P1 G1 X1 F10", "test.ngc:1:11", "G1", "both use the axis words",
+       "axis words belong to G10"},
+      {"G84 X1 Z-1 R1 F10", "test.ngc:1:1", "G84", "not supported by the checker", "checker scope"},
       {"G0 A10", "test.ngc:1:4", "A", "rotary axis", "checker scope: three linear axes"},
       {"G1 X1", "test.ngc:1:1", "G1", "feed rate", "3.5.4 feed move needs F (G94)"},
       {"G2 X1 Y1", "test.ngc:1:1", "G2", "R (radius) or the centre offsets", "3.5.3 arc format"},
@@ -288,10 +295,118 @@ TEST(rs274_interpreter, repeats_in_incremental_mode_step_along) {
   EXPECT_TRUE(std::holds_alternative<Stop>(events[events.size() - 2].body));
 }
 
+// --- coordinate systems, G92, G10, G28/G30 and G53 (NISTIR 6556, the
+// sections on coordinate systems, G10, G92, G28/G30 and G53; parameter
+// numbers from memory: #5161-#5166 G28 home, #5181-#5186 G30 home,
+// #5211-#5216 G92 offsets, #5220 the selected system, #5221 + 20 (n - 1) the
+// origin of system n) ---
+
+TEST(rs274_interpreter, g92_gives_the_current_point_new_coordinates) {
+  // G92 X0 Y0 at (10, 5, 3): the offsets become 10 and 5 (Z keeps its
+  // offset, none); G92.2 zeroes the offsets and keeps #5211..; G92.3 takes
+  // them back from the parameters; G92.1 zeroes both.
+  StringProgramSource source(
+      "G0 X10 Y5 Z3\nG92 X0 Y0\nG0 X1\nG92.2\nG0 X1\nG92.3\nG0 X1\nG92.1\nG0 X1\nM2\n", "test.ngc");
+  Rs274Interpreter interpreter(source);
+  std::vector<Event> events;
+  while (auto event = interpreter.next()) {
+    events.push_back(*event);
+    if (events.size() == 2) {
+      EXPECT_EQ(interpreter.parameters().get(5211), 10);
+      EXPECT_EQ(interpreter.parameters().get(5212), 5);
+    }
+  }
+  const auto moves = motions(events);
+  ASSERT_EQ(moves.size(), 5u);
+  expect_point(moves[1].programmed.start, 0, 0, 3);  // the same machine point
+  expect_point(moves[1].programmed.end, 1, 0, 3);
+  expect_point(events[1].state.axis_offset_mm, 10, 5, 0);
+  expect_point(moves[2].programmed.start, 11, 5, 3);  // G92.2: offsets gone
+  expect_point(moves[3].programmed.start, -9, 0, 3);  // G92.3: back from #5211..
+  expect_point(moves[4].programmed.start, 11, 5, 3);  // G92.1
+  EXPECT_EQ(interpreter.parameters().get(5211), 0);
+}
+
+TEST(rs274_interpreter, g92_offsets_apply_to_every_system_and_not_to_g53) {
+  InterpreterOptions options{.parameters = {{5241, 100}}};
+  const auto moves = motions(run_program("G0 X10\nG92 X0\nG55\nG0 Y1\nG53 G0 X0\nM2\n", options));
+  ASSERT_EQ(moves.size(), 3u);
+  // Machine x 10 in G55 (origin 100) with the G92 offset 10: 10 - 100 - 10.
+  expect_point(moves[1].programmed.start, -100, 0, 0);
+  // G53 X0 is machine x 0: 0 - 100 - 10 in the work coordinates of the move.
+  expect_point(moves[2].programmed.end, -110, 1, 0);
+}
+
+TEST(rs274_interpreter, g10_l2_sets_a_systems_origin) {
+  // Setting the selected system's origin moves the current point's
+  // coordinates at once; another system's takes effect when selected.
+  StringProgramSource source(
+      "G0 X5\nG10 L2 P1 X2\nG0 Y1\nG10 L2 P2 X100 Y50 Z-10\nG55\nG0 X1\nM2\n", "test.ngc");
+  Rs274Interpreter interpreter(source);
+  std::vector<Event> events;
+  while (auto event = interpreter.next()) events.push_back(*event);
+  const auto moves = motions(events);
+  ASSERT_EQ(moves.size(), 3u);
+  expect_point(moves[1].programmed.start, 3, 0, 0);
+  expect_point(moves[2].programmed.start, 5 - 100, 1 - 50, 10);
+  EXPECT_EQ(interpreter.parameters().get(5221), 2);
+  EXPECT_EQ(interpreter.parameters().get(5242), 50);
+  EXPECT_EQ(interpreter.parameters().get(5220), 2);  // G55 selected
+}
+
+TEST(rs274_interpreter, g10_l20_sets_the_origin_so_the_current_point_reads_as_given) {
+  // A later extension to RS274NGC (from memory): G10 L20 P3 X0 Y0 at
+  // machine (5, 5, 0) puts G56's origin at (5, 5) and leaves Z's alone.
+  StringProgramSource source("G0 X5 Y5\nG10 L20 P3 X0 Y0\nG56\nG0 Z1\nM2\n", "test.ngc");
+  Rs274Interpreter interpreter(source);
+  std::vector<Event> events;
+  while (auto event = interpreter.next()) events.push_back(*event);
+  const auto moves = motions(events);
+  ASSERT_EQ(moves.size(), 2u);
+  expect_point(moves[1].programmed.start, 0, 0, 0);
+  EXPECT_EQ(interpreter.parameters().get(5261), 5);
+  EXPECT_EQ(interpreter.parameters().get(5262), 5);
+  EXPECT_EQ(interpreter.parameters().get(5263), 0);
+}
+
+TEST(rs274_interpreter, the_program_starts_in_the_system_5220_names) {
+  InterpreterOptions options{.parameters = {{5220, 2}, {5241, 10}, {5211, 1}}};
+  const auto events = run_program("G0 X0\nG54\nG0 X0\nM2\n", options);
+  const auto moves = motions(events);
+  ASSERT_EQ(moves.size(), 2u);
+  EXPECT_EQ(events[0].state.coordinate_system, 2);
+  expect_point(events[0].state.work_offset_mm, 10, 0, 0);
+  expect_point(events[0].state.axis_offset_mm, 1, 0, 0);  // G92 offset from #5211
+  // Machine x 11 reads 11 - 0 - 1 in G54.
+  expect_point(moves[1].programmed.start, 10, 0, 0);
+}
+
+TEST(rs274_interpreter, g28_without_a_home_can_rise_straight_up) {
+  // The checker's stand-in for a home nobody gave: straight up from the
+  // intermediate point (G91 G28 Z0: the current point) to machine z 100.
+  InterpreterOptions options{.g28_rise_to_mm = 100.0};
+  const auto moves = motions(run_program("G0 X5 Y5 Z-1\nG91 G28 Z0\nG90\nM2\n", options));
+  ASSERT_EQ(moves.size(), 3u);
+  expect_point(moves[1].programmed.end, 5, 5, -1);
+  expect_point(moves[2].programmed.end, 5, 5, 100);
+  EXPECT_EQ(moves[2].home_return, 28);
+  EXPECT_EQ(moves[1].home_return, 0);
+}
+
+TEST(rs274_interpreter, a_missing_tool_can_be_reported_and_read_on) {
+  InterpreterOptions options{.tools = {{.number = 3, .radius_mm = 6, .length_mm = 0}},
+                             .missing_tools_are_zero = true};
+  const auto events = run_program("G43 H7\nG41 D8\nG0 X10\nM2\n", options);
+  ASSERT_GE(events.size(), 3u);
+  EXPECT_EQ(std::get<MissingTool>(events[0].body), (MissingTool{7, 'H'}));
+  EXPECT_EQ(std::get<MissingTool>(events[1].body), (MissingTool{8, 'D'}));
+  EXPECT_EQ(events[2].state.compensation_radius_mm, 0);
+}
+
 TEST(rs274_interpreter, fuzz_seed_programs_run_to_their_end) {
   // The seeds under tests/fuzz/corpus/rs274 start with one mode byte for the
   // fuzz target ('1' mm, '2' inch); the rest is a valid program.
-  for (const char* name : {"contour.ngc", "peck.ngc", "params.ngc", "planes.ngc"}) {
+  for (const char* name : {"contour.ngc", "peck.ngc", "params.ngc", "planes.ngc", "offsets.ngc"}) {
     SCOPED_TRACE(name);
     std::ifstream in(testing::source_path(std::string("tests/fuzz/corpus/rs274/") + name),
                      std::ios::binary);

@@ -148,5 +148,47 @@ TEST(tool_body, bull_nose_end_mill_rounds_its_corner) {
   EXPECT_GE(from_centre, 1 - 1e-4);
 }
 
+TEST(tool_body, drill_point_is_a_cone_of_its_point_angle) {
+  // A 10 mm drill with the usual 118 deg point (common practice, no
+  // source): the point is r / tan(59 deg) = 3.0043 mm long (right-triangle
+  // trigonometry), then the body runs at the full diameter.
+  Tool t;
+  t.kind = ToolKind::Drill;
+  t.diameter = 10;
+  t.flute_length = 40;
+  const ToolBody body = tool_body(t);
+  const BodySection& flutes = part(body, BodyPart::Flutes);
+  const double point = 5 / std::tan(radians(59));
+  EXPECT_NEAR(point, 3.0043, 1e-4);
+  EXPECT_NEAR(flutes.radius_at(0), 0, 1e-12);
+  EXPECT_NEAR(flutes.radius_at(point / 2), 2.5, 1e-12);
+  EXPECT_NEAR(flutes.radius_at(point), 5, 1e-12);
+  EXPECT_NEAR(flutes.radius_at(20), 5, 1e-12);
+  EXPECT_NEAR(flutes.top(), 40, 1e-12);
+  EXPECT_EQ(part(body, BodyPart::Shank).max_radius(), 5);
+}
+
+TEST(tool_body, chamfer_mill_widens_from_its_tip_at_half_its_angle) {
+  // A 90 deg chamfer mill, 12 mm across with a 2 mm tip: radius 1 + h
+  // (tan 45 deg = 1) up to 6 mm at h = 5 mm.
+  Tool t;
+  t.kind = ToolKind::ChamferMill;
+  t.diameter = 12;
+  t.tip_diameter = 2;
+  t.angle = 90;
+  t.flute_length = 8;
+  const ToolBody body = tool_body(t);
+  const BodySection& flutes = part(body, BodyPart::Flutes);
+  EXPECT_NEAR(flutes.radius_at(0), 1, 1e-12);
+  EXPECT_NEAR(flutes.radius_at(2.5), 3.5, 1e-12);
+  EXPECT_NEAR(flutes.radius_at(5), 6, 1e-12);
+  EXPECT_NEAR(flutes.radius_at(7), 6, 1e-12);
+  // 60 deg included: radius grows by tan 30 deg = 0.57735 per mm.
+  t.angle = 60;
+  t.flute_length = 9;
+  EXPECT_NEAR(part(tool_body(t), BodyPart::Flutes).radius_at(3), 1 + 3 * std::tan(radians(30)),
+              1e-12);
+}
+
 }  // namespace
 }  // namespace dovetailor

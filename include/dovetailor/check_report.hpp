@@ -30,6 +30,7 @@ enum class FindingKind {
   UnknownTool,            // the program cuts with a tool the job does not list
   ReadingOutOfTolerance,  // the virtual pin reading at a station misses the target band
   NoProgramEnd,           // the program ran out without M2, M30 or '%'
+  HomeNotGiven,           // G28/G30 with no home position given: taken as straight up
 };
 
 // The word used in JSON and in the text report: "gouge", "stock_left", ...
@@ -98,8 +99,27 @@ struct StationResult {
   bool operator==(const StationResult&) const = default;
 };
 
+// Findings of one kind and severity whose words differ only in their
+// figures (the same thing seen at several lines or stations), taken
+// together for the text report.
+struct FindingGroup {
+  FindingKind kind = FindingKind::Gouge;
+  Severity severity = Severity::Error;
+  std::string text;                        // the first finding's
+  long count = 0;                          // findings kept in the group
+  std::vector<int> lines;                  // distinct lines, in program order
+  std::optional<double> y_min{}, y_max{};  // stations, when tied to them
+
+  bool operator==(const FindingGroup&) const = default;
+};
+
+// Errors first, then warnings; within each, in the order the first finding
+// of each group came.
+std::vector<FindingGroup> group_findings(const std::vector<Finding>& findings);
+
 struct CheckReport {
   std::string program;  // the program's name, for the report
+  ProgramSetup setup;   // the program's frame, offsets and homes the check used
   Units units = Units::Millimetre;
   DovetailType type = DovetailType::Female;
   Tolerance tolerance;               // on the width, and so on the reading
@@ -121,13 +141,15 @@ struct CheckReport {
   long count(FindingKind kind) const;
 };
 
-// The text report: findings first, then the measured section per station
+// The text report: findings first (grouped: errors first, a finding seen
+// many times on one line with its count and lines), then the measured section per station
 // against the target, with the usual cautions. In the job's units.
 std::string format_check_report(const CheckReport& report);
 
 // The report as JSON text: "verdict" ("pass" when no error findings, else
 // "fail"), "units", "findings" (kind, severity, line, station_y, amount,
-// limit, text), "finding_counts", "stations" (y, reading, width_bottom,
+// limit, text; every finding kept), "finding_groups" (kind, severity,
+// count, lines, text), "finding_counts", "stations" (y, reading, width_bottom,
 // width_top, depth, target_reading, in_tolerance, flank angles and
 // straightness), "reading_taper", "reading_spread". Lengths in the job's
 // units, angles in degrees.

@@ -51,6 +51,14 @@ namespace dovetailor {
 // diameter when the job cannot be planned (the planner's cap, common
 // practice); end mills are not limited (they slot at full width by design).
 //
+// Frames: every move comes from the interpreter in the work coordinates of
+// the active system; with the job's ProgramSetup (Job::program: program
+// zero, slide axis, work offsets, G28/G30 homes) it is taken through machine
+// coordinates to the system the program started in and turned and shifted
+// into the job's frame (program_frame.hpp) before it is simulated. G28/G30
+// with no home given rise straight up (HomeNotGiven warning); a D or H for a
+// tool the job does not list is an UnknownTool finding and the check goes on.
+//
 // The safe height is the planner's (plan.hpp: 0.2 in / 5 mm above the top
 // face); the simulated tool starts above work zero at that height.
 

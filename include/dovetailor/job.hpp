@@ -1,11 +1,13 @@
 #pragma once
 
+#include <array>
 #include <optional>
 #include <string>
 #include <vector>
 
 #include <dovetailor/error.hpp>
 #include <dovetailor/handwheel.hpp>
+#include <dovetailor/point.hpp>
 #include <dovetailor/units.hpp>
 
 namespace dovetailor {
@@ -23,7 +25,7 @@ enum class WidthAt { Bottom, Top };  // which plane `width` is given at
 enum class AngledSides { Both, Left, Right };
 enum class Ends { Open, FrontOpen, Closed };
 enum class Side { Left, Right };  // -X and +X of the centre line
-enum class ToolKind { EndMill, Dovetail };
+enum class ToolKind { EndMill, Dovetail, Drill, ChamferMill };
 enum class ToolMaterial { Hss, Carbide };
 enum class MachineKind { Cnc, Manual };
 enum class MillingMode { Conventional, Climb, Both };
@@ -123,6 +125,12 @@ struct Tool {
   double angle = 0;  // degrees, between the bottom face and the cone
   double neck_diameter = 0;
   double corner_radius = 0;
+  // Drills only: the included angle of the point (118 deg by default,
+  // common practice, no source).
+  double point_angle = 118;
+  // Chamfer mills only: `angle` is the included angle of the cone, and the
+  // cone runs from this diameter at the tip up to `diameter` (0: pointed).
+  double tip_diameter = 0;
   // Optional body data, used for collision checks and deflection.
   std::optional<double> shank_diameter;
   std::optional<double> stickout;  // gauge length, holder face to tip
@@ -204,6 +212,33 @@ struct Fixture {
   bool operator==(const Fixture&) const = default;
 };
 
+// Where a program written elsewhere puts its zero and its axes, for the
+// checker ([program] in the job file, or check's flags). The checker
+// simulates in the job's frame (X lateral, Z up, Y along the slide, zero on
+// the top face at the front end of the centre line).
+//
+// `zero` is the program's zero in the job's frame: the origin of the
+// coordinate system the program starts in (#5220, G54 unless a parameter says
+// otherwise), with its own offsets. `slide` is the program's axis that runs
+// along the slide from the front end toward the back; Z is up in both, so
+// the program's frame is the job's turned about Z (never mirrored).
+enum class SlideAxis { PlusX, MinusX, PlusY, MinusY };
+
+struct ProgramSetup {
+  Point3 zero{};
+  SlideAxis slide = SlideAxis::PlusY;
+  // Origins of coordinate systems 1..9 (G54 .. G59.3) in machine
+  // coordinates, as the control's offset table holds them; systems not
+  // given are at machine zero. Index 0 is G54.
+  std::array<std::optional<Point3>, 9> offsets{};
+  // The G28 and G30 home positions in machine coordinates; when not given, a
+  // return goes straight up from its intermediate point (the checker warns).
+  std::optional<Point3> g28_home{};
+  std::optional<Point3> g30_home{};
+
+  bool operator==(const ProgramSetup&) const = default;
+};
+
 struct Job {
   std::string source;  // file name the job was read from, for messages
   Units units = Units::Inch;
@@ -215,6 +250,7 @@ struct Job {
   Machine machine;
   Strategy strategy;
   std::vector<Fixture> fixtures;
+  ProgramSetup program;
 
   bool operator==(const Job&) const = default;
 };

@@ -61,6 +61,7 @@ struct Motion {
   std::vector<PathSegment> tool_centre;
   double feed_mm_per_min = 0;  // 0 for rapids (machine's rapid rate)
   bool canned_cycle = false;   // made by G81..G89 rather than written out
+  int home_return = 0;         // 28 or 30 for the move of G28/G30 to its home, else 0
 
   bool operator==(const Motion&) const = default;
 };
@@ -101,6 +102,15 @@ struct CoolantChange {
   bool operator==(const CoolantChange&) const = default;
 };
 
+// A D or H word named a tool the tool table does not hold, and the
+// interpreter was told to go on (InterpreterOptions::missing_tools_are_zero):
+// the block used zero radius or length instead.
+struct MissingTool {
+  int tool = 0;
+  char word = 'H';  // 'D' or 'H'
+  bool operator==(const MissingTool&) const = default;
+};
+
 // How the program ended: M2, M30, a closing '%' line, or the input ran out
 // without any of them (a checker may warn about that).
 enum class EndKind { M2, M30, Percent, EndOfInput };
@@ -130,16 +140,19 @@ struct MachineState {
   CompensationSide compensation = CompensationSide::Off;
   double compensation_radius_mm = 0;
   int coordinate_system = 1;  // 1 = G54 .. 6 = G59, 7..9 = G59.1..G59.3
-  // Work zero in machine coordinates: machine = work + work_offset (+ tool
-  // length offset on Z for the spindle's gauge point).
+  // Work zero in machine coordinates: machine = work + work_offset +
+  // axis_offset (+ tool length offset on Z for the spindle's gauge point).
+  // work_offset is the origin of the selected system (G54..G59.3, set by
+  // parameters or G10), axis_offset the G92 offset applied to every system.
   Point3 work_offset_mm;
+  Point3 axis_offset_mm;
   Coolant coolant;
 
   bool operator==(const MachineState&) const = default;
 };
 
-using EventBody =
-    std::variant<Motion, Dwell, Stop, ToolChange, SpindleChange, CoolantChange, ProgramEnd>;
+using EventBody = std::variant<Motion, Dwell, Stop, ToolChange, SpindleChange, CoolantChange,
+                               ProgramEnd, MissingTool>;
 
 struct Event {
   int line = 0;  // 1-based source line that caused it

@@ -27,18 +27,28 @@ namespace dovetailor {
 // Supported (NISTIR 6556 chapter 3, section numbers from memory):
 //   G0 G1 G2 G3 (centre I J K and radius R, full circles, helices), G4 P
 //   dwell, G17 G18 G19, G20 G21 (everything becomes mm), G40 G41 G42 with D
-//   (XY plane only), G43 H, G49, G53 (with G0/G1), G54..G59 G59.1..G59.3
-//   (origins from parameters #5221.. in the program's units at the time the
-//   system is selected), G61 G61.1 G64 (accepted; no effect on the path),
-//   G28 G30 (via the axis words' point to the home position in #5161.. or
-//   #5181.., machine coordinates, all three axes, as NIST V3 does),
-//   G80, canned cycles G81 G82 G83 G85 G89 in the XY plane (generated as
-//   the moves they make, with G98/G99 return levels, L repeats, R and Z
-//   kept while the same cycle continues as NIST does, P and Q kept too),
-//   G90 G91, G93 G94, G98 G99, M0 M1 M2 M3 M4 M5 M6 M7 M8 M9 M30 M48 M49
-//   M60, F S T, parameters and expressions.
-// Not supported (InputError naming the line and the word): G10, G38.2,
-//   G84, G86, G87, G88, the G92 family, A B C axis words, canned cycles
+//   (XY plane only), G43 H, G49, G53 (with G0/G1: machine coordinates for
+//   that block only), G54..G59 G59.1..G59.3 (origins of systems 1..9 from
+//   parameters #5221 + 20 (n - 1) X, +1 Y, +2 Z, in the program's units at
+//   the time the system is selected; the number of the selected system is
+//   kept in #5220 and the program starts in the system #5220 names, 1 when
+//   it holds 0), G10 L2 Pn (sets system n's origin to the axis words, in
+//   machine coordinates; the others keep theirs) and G10 L20 Pn (a later
+//   extension to RS274NGC, from memory: sets system n's origin so that the
+//   current point has the given coordinates in it), G92 (an offset of every
+//   system such that the current point has the given coordinates; kept in
+//   #5211..#5213 and read from them at the start), G92.1 (offset zero and
+//   #5211.. cleared), G92.2 (offset zero, parameters kept), G92.3 (offset
+//   back from the parameters), G61 G61.1 G64 (accepted; no effect on the
+//   path), G28 G30 (via the axis words' point to the home position in
+//   #5161.. or #5181.., machine coordinates, all three axes, as NIST V3
+//   does), G80, canned cycles G81 G82 G83 G85 G89 in the XY plane
+//   (generated as the moves they make, with G98/G99 return levels, L
+//   repeats, R and Z kept while the same cycle continues as NIST does, P and
+//   Q kept too), G90 G91, G93 G94, G98 G99, M0 M1 M2 M3 M4 M5 M6 M7 M8 M9 M30
+//   M48 M49 M60, F S T, parameters and expressions.
+// Not supported (InputError naming the line and the word): G10 L1 (tool
+//   table), G38.2, G84, G86, G87, G88, A B C axis words, canned cycles
 //   outside the XY plane, canned cycles in G93.
 //
 // Order of execution within a block follows the spec's table (section 3.8,
@@ -70,7 +80,7 @@ struct ToolTableEntry {
 struct InterpreterOptions {
   std::vector<ToolTableEntry> tools{};
   Units initial_units = Units::Millimetre;  // until the program says G20 or G21
-  Point3 start_mm{};                        // tool tip at the start, in G54 work coordinates
+  Point3 start_mm{};  // tool tip at the start, in the starting system's work coordinates
   // The operator's block delete switch: when on, lines that start with '/'
   // are skipped without being read.
   bool block_delete = false;
@@ -78,6 +88,15 @@ struct InterpreterOptions {
   int highest_parameter = Rs274Parameters::highest_number;
   // Parameter values before the program starts, e.g. {{5221, 10.0}}.
   std::vector<std::pair<int, double>> parameters{};
+  // A D or H word naming a tool not in `tools`: false refuses the line
+  // (InputError); true goes on with zero radius or length and hands out a
+  // MissingTool event first (a checker reports it and reads on).
+  bool missing_tools_are_zero = false;
+  // When set, G28 (G30) goes through the intermediate point to a point
+  // straight above it at this machine Z (mm) instead of to the stored home
+  // position: a stand-in for a home position nobody gave.
+  std::optional<double> g28_rise_to_mm{};
+  std::optional<double> g30_rise_to_mm{};
 };
 
 class Rs274Interpreter {

@@ -12,7 +12,9 @@ namespace dovetailor {
 // Parameters the interpreter reads (NISTIR 6556 table "Parameters used",
 // from memory): #5221-#5226 G54 origin X Y Z A B C, then blocks of 20 for
 // G55 (#5241..) to G59.3 (#5381..); #5161-#5163 and #5181-#5183 are the
-// G28 and G30 home positions. Values are in the program's length units.
+// G28 and G30 home positions; #5211-#5213 the G92 offsets; #5220 the
+// number of the selected system (1 = G54). Values are in the program's
+// length units.
 class Rs274Parameters {
  public:
   static constexpr int highest_number = 5399;

@@ -109,6 +109,11 @@ struct ToolBodyOptions {
 // D/2, so a pin-measured flank is where a sharp cutter would put it), then
 // the neck of the neck diameter, then the shank.
 //
+// Drill: a cone of the point angle (included) from the point on the axis up
+// to the diameter, then the diameter to the flute length. Chamfer mill: a
+// cone of its included angle from the tip diameter up to the diameter, then
+// the diameter to the flute length. Both then the shank.
+//
 // Neck, shank, stickout and holder are body_dimensions(tool): where the job
 // leaves them out, its assumptions. The tool data must be valid as the job
 // reader checks it (positive diameters, a cone that does not close within

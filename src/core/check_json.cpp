@@ -46,6 +46,16 @@ std::string check_json(const CheckReport& r) {
     o["text"] = f.text;
     findings.push_back(o);
   }
+  auto& groups = j["finding_groups"] = nlohmann::json::array();
+  for (const FindingGroup& g : group_findings(r.findings)) {
+    nlohmann::json o;
+    o["kind"] = finding_kind_name(g.kind);
+    o["severity"] = severity_name(g.severity);
+    o["count"] = g.count;
+    o["lines"] = g.lines;
+    o["text"] = g.text;
+    groups.push_back(o);
+  }
   auto& counts = j["finding_counts"] = nlohmann::json::object();
   for (const FindingCount& c : r.counts) counts[std::string(finding_kind_name(c.kind))] = c.count;
   auto& stations = j["stations"] = nlohmann::json::array();

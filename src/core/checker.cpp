@@ -6,6 +6,7 @@
 
 #include <dovetailor/checker.hpp>
 #include <dovetailor/planner.hpp>
+#include <dovetailor/program_frame.hpp>
 #include <dovetailor/rs274_interpreter.hpp>
 
 #include "check_detail.hpp"
@@ -94,6 +95,11 @@ class Checker {
 
  private:
   void motion(const Event& event, const Motion& m, StationSimulator& sim);
+  // The move in the job's frame: from the event's work coordinates through
+  // machine coordinates to the program frame (the system the program started
+  // in), then turned and shifted (program_frame.hpp).
+  Motion in_job_frame(const Event& event, const Motion& m) const;
+  InterpreterOptions interpreter_options() const;
   void fixtures(const SimTool& tool, const Point3& from, const Point3& to, int line);
   const SimTool* tool_for(const Event& event);
 
@@ -107,7 +113,58 @@ class Checker {
   int hand_changed_ = 0;  // tool fitted by hand at a program stop
   int end_line_ = 0;
   long moves_ = 0;
+  Point3 start_origin_;  // origin of the system the program starts in, machine coordinates
 };
+
+Motion Checker::in_job_frame(const Event& event, const Motion& m) const {
+  const ProgramSetup& setup = job_.program;
+  const Point3& w = event.state.work_offset_mm;
+  const Point3& g92 = event.state.axis_offset_mm;
+  const Point3 d{w.x + g92.x - start_origin_.x, w.y + g92.y - start_origin_.y,
+                 w.z + g92.z - start_origin_.z};
+  const auto moved = [&](const Point3& p) { return Point3{p.x + d.x, p.y + d.y, p.z + d.z}; };
+  const auto segment = [&](const PathSegment& s) {
+    PathSegment out{moved(s.start), moved(s.end), s.arc};
+    if (out.arc) out.arc->centre = moved(s.arc->centre);
+    return program_to_job(setup, out);
+  };
+  Motion out = m;
+  out.programmed = segment(m.programmed);
+  for (PathSegment& s : out.tool_centre) s = segment(s);
+  return out;
+}
+
+// The job's offsets and homes become the control's parameters, in the job's
+// units (NISTIR 6556 parameter table, from memory: #5161-#5163 G28 home,
+// #5181-#5183 G30 home, #5221 + 20 (n - 1) the origin of system n).
+InterpreterOptions Checker::interpreter_options() const {
+  const ProgramSetup& setup = job_.program;
+  InterpreterOptions io;
+  for (const Tool& t : job_.tools) io.tools.push_back({t.number, t.diameter / 2, 0});
+  io.initial_units = job_.units;
+  io.missing_tools_are_zero = true;
+  const auto put = [&](int first, const Point3& p) {
+    io.parameters.emplace_back(first, from_mm(p.x, job_.units));
+    io.parameters.emplace_back(first + 1, from_mm(p.y, job_.units));
+    io.parameters.emplace_back(first + 2, from_mm(p.z, job_.units));
+  };
+  for (std::size_t n = 0; n < setup.offsets.size(); ++n)
+    if (setup.offsets[n]) put(5221 + 20 * static_cast<int>(n), *setup.offsets[n]);
+  // A return with no home given goes straight up, to 250 mm / 10 in above
+  // the top face (the top of a mill's Z travel is far above the work;
+  // common practice, no source).
+  const double rise = start_origin_.z - setup.zero.z + by_units(job_.units, 10, 250);
+  if (setup.g28_home)
+    put(5161, *setup.g28_home);
+  else
+    io.g28_rise_to_mm = rise;
+  if (setup.g30_home)
+    put(5181, *setup.g30_home);
+  else
+    io.g30_rise_to_mm = rise;
+  io.start_mm = job_to_program(setup, {0, 0, rules_.safe_z});
+  return io;
+}
 
 const SimTool* Checker::tool_for(const Event& event) {
   // A control without a tool changer stops (M0/M1) for the operator to fit
@@ -216,13 +273,11 @@ CheckReport Checker::run(ProgramSource& program) {
       SectionRegion::rectangle(stock_left_x(job_), -job_.stock.height, stock_right_x(job_), 0);
   StationSimulator sim(ys, std::move(targets), stock, sink_);
 
-  InterpreterOptions io;
-  for (const Tool& t : job_.tools) io.tools.push_back({t.number, t.diameter / 2, 0});
-  io.initial_units = job_.units;
-  io.start_mm = {0, 0, rules_.safe_z};
-  Rs274Interpreter reader(program, io);
+  start_origin_ = job_.program.offsets[0].value_or(Point3{});
+  Rs274Interpreter reader(program, interpreter_options());
   CheckReport report;
   report.program = program.name();
+  report.setup = job_.program;
   long next_progress = options_.progress_every;
   while (auto event = reader.next()) {
     if (options_.progress && event->line >= next_progress) {
@@ -236,7 +291,28 @@ CheckReport Checker::run(ProgramSource& program) {
                                    options_.max_lines),
                        {program.name(), event->line}, "program length");
     if (const auto* m = std::get_if<Motion>(&event->body)) {
-      motion(*event, *m, sim);
+      const bool home_given = m->home_return == 28   ? job_.program.g28_home.has_value()
+                              : m->home_return == 30 ? job_.program.g30_home.has_value()
+                                                     : true;
+      if (!home_given)
+        sink_.add({.kind = FindingKind::HomeNotGiven,
+                   .severity = Severity::Warning,
+                   .line = event->line,
+                   .text = fmt::format("G{} return with no home position given ([program] g{} "
+                                       "or --home G{}=X..,Y..,Z..): taken as straight up from "
+                                       "its intermediate point",
+                                       m->home_return, m->home_return, m->home_return)});
+      motion(*event, in_job_frame(*event, *m), sim);
+    } else if (const auto* missing = std::get_if<MissingTool>(&event->body)) {
+      if (unknown_reported_.insert(missing->tool).second)
+        sink_.add({.kind = FindingKind::UnknownTool,
+                   .severity = Severity::Error,
+                   .line = event->line,
+                   .amount = static_cast<double>(missing->tool),
+                   .text = fmt::format("{}{} names T{}, which the job does not list in [[tool]]: "
+                                       "taken as zero {}; moves with T{} cannot be checked",
+                                       missing->word, missing->tool, missing->tool,
+                                       missing->word == 'D' ? "radius" : "length", missing->tool)});
     } else if (std::holds_alternative<Stop>(event->body)) {
       if (event->state.selected_tool != event->state.tool)
         hand_changed_ = event->state.selected_tool;

@@ -58,7 +58,7 @@ ToolBeam tool_beam(const Tool& tool) {
   const BodyDimensions d = body_dimensions(tool);
   beam.shank_assumed = d.shank_assumed;
   beam.stickout_assumed = d.stickout_assumed;
-  if (tool.kind == ToolKind::EndMill) {
+  if (tool.kind != ToolKind::Dovetail) {
     beam.sections = {{d.stickout - tool.flute_length, d.shank_diameter},
                      {tool.flute_length, fluted_diameter_factor * tool.diameter}};
   } else {

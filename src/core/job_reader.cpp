@@ -1,3 +1,4 @@
+#include <array>
 #include <cmath>
 #include <set>
 
@@ -42,6 +43,7 @@ class JobReader {
     read_machine(top);
     read_strategy(top);
     read_fixtures(top);
+    read_program(top);
     top.reject_unknown();
     check_combinations();
     return job_;
@@ -262,9 +264,13 @@ class JobReader {
       tool.number = static_cast<int>(*number);
       if (!numbers.insert(tool.number).second)
         t.fail("number", fmt::format("tool number {} is used twice", tool.number));
-      auto kind = t.choice<ToolKind>(
-          "kind", {{"end-mill", ToolKind::EndMill}, {"dovetail", ToolKind::Dovetail}});
-      if (!kind) t.fail("kind", "missing; give kind = \"end-mill\" or \"dovetail\"");
+      auto kind = t.choice<ToolKind>("kind", {{"end-mill", ToolKind::EndMill},
+                                              {"dovetail", ToolKind::Dovetail},
+                                              {"drill", ToolKind::Drill},
+                                              {"chamfer-mill", ToolKind::ChamferMill}});
+      if (!kind)
+        t.fail("kind",
+               "missing; give kind = \"end-mill\", \"dovetail\", \"drill\" or \"chamfer-mill\"");
       tool.kind = *kind;
       tool.diameter = positive_length(t, "diameter");
       auto flutes = t.integer("flutes", 1, 32);
@@ -276,11 +282,16 @@ class JobReader {
       if (!material) t.fail("material", "missing; give material = \"hss\" or \"carbide\"");
       tool.material = *material;
       const bool dovetail = tool.kind == ToolKind::Dovetail;
-      const auto only_dovetail = [&](std::string_view key) {
-        if (!dovetail && t.has(key))
-          t.fail(key, "applies only to dovetail cutters (kind = \"dovetail\")");
+      const bool chamfer = tool.kind == ToolKind::ChamferMill;
+      const auto only_for = [&](std::string_view key, bool fits, std::string_view kinds) {
+        if (!fits && t.has(key)) t.fail(key, fmt::format("applies only to {}", kinds));
       };
-      for (std::string_view key : {"angle", "neck_diameter", "corner_radius"}) only_dovetail(key);
+      only_for("angle", dovetail || chamfer,
+               "dovetail cutters and chamfer mills (kind = \"dovetail\" or \"chamfer-mill\")");
+      for (std::string_view key : {"neck_diameter", "corner_radius"})
+        only_for(key, dovetail, "dovetail cutters (kind = \"dovetail\")");
+      only_for("point_angle", tool.kind == ToolKind::Drill, "drills (kind = \"drill\")");
+      only_for("tip_diameter", chamfer, "chamfer mills (kind = \"chamfer-mill\")");
       if (dovetail) {
         tool.angle = t.required_number("angle", 30, 75);
         tool.neck_diameter = positive_length(t, "neck_diameter");
@@ -296,6 +307,25 @@ class JobReader {
                  "flutes (diameter - 2 * flute_length * cot(angle))");
         if (tool.corner_radius >= tool.flute_length)
           t.fail("corner_radius", "must be smaller than the flute length");
+      }
+      if (tool.kind == ToolKind::Drill) {
+        tool.point_angle = t.number("point_angle", 60, 160).value_or(118);
+        const double point = tool.diameter / 2 / std::tan(radians(tool.point_angle / 2));
+        if (point > tool.flute_length + 1e-9)
+          t.fail("flute_length", "is shorter than the drill's point");
+      }
+      if (chamfer) {
+        tool.angle = t.required_number("angle", 30, 150);
+        tool.tip_diameter = length(t, "tip_diameter", 0, false, 0);
+        if (tool.tip_diameter >= tool.diameter)
+          t.fail("tip_diameter", "must be smaller than the diameter");
+        const double cone =
+            (tool.diameter - tool.tip_diameter) / 2 / std::tan(radians(tool.angle / 2));
+        if (cone > tool.flute_length + 1e-9)
+          t.fail("flute_length",
+                 fmt::format("is shorter than the cone ({} from the tip diameter to the "
+                             "diameter at this angle)",
+                             length_text(cone, job_.units)));
       }
       tool.shank_diameter = optional_positive_length(t, "shank_diameter");
       tool.stickout = optional_positive_length(t, "stickout");
@@ -533,6 +563,41 @@ class JobReader {
                "end)");
       job_.fixtures.push_back(f);
     }
+  }
+
+  // [program]: where a program written elsewhere puts its zero and its
+  // axes, its work offsets and home positions (job.hpp, ProgramSetup).
+  void read_program(TableReader& top) {
+    const auto* table = top.table("program");
+    if (!table) return;
+    TableReader t(*table, "program", file_);
+    ProgramSetup& p = job_.program;
+    const double big = largest_length(job_.units);
+    // Machine coordinates reach further than any stock: up to 10 times the
+    // largest length (1000 in / 25 m).
+    const auto point = [&](TableReader& r, std::string_view key,
+                           double limit) -> std::optional<Point3> {
+      auto v = r.numbers(key, 3, -limit, limit);
+      if (!v) return std::nullopt;
+      return Point3{to_mm((*v)[0], job_.units), to_mm((*v)[1], job_.units),
+                    to_mm((*v)[2], job_.units)};
+    };
+    p.zero = point(t, "zero", big).value_or(Point3{});
+    p.slide = t.choice<SlideAxis>("slide", {{"+x", SlideAxis::PlusX},
+                                            {"-x", SlideAxis::MinusX},
+                                            {"+y", SlideAxis::PlusY},
+                                            {"-y", SlideAxis::MinusY}})
+                  .value_or(SlideAxis::PlusY);
+    p.g28_home = point(t, "g28", 10 * big);
+    p.g30_home = point(t, "g30", 10 * big);
+    if (const auto* offsets = t.table("offsets")) {
+      TableReader o(*offsets, "program.offsets", file_);
+      static constexpr std::array<std::string_view, 9> names{"g54", "g55",   "g56",   "g57",  "g58",
+                                                             "g59", "g59_1", "g59_2", "g59_3"};
+      for (std::size_t n = 0; n < names.size(); ++n) p.offsets[n] = point(o, names[n], 10 * big);
+      o.reject_unknown();
+    }
+    t.reject_unknown();
   }
 
   void check_combinations() {

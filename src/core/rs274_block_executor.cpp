@@ -35,6 +35,8 @@ void Rs274BlockExecutor::run() {
   if (g_[10]) retract_to_r_ = g_[10]->number == 990;
   in_.retract_to_r_mode_ = retract_to_r_;
   if (homing()) go_home();
+  if (non_modal(100)) coordinate_data();
+  if (g_[0] && g_[0]->number >= 920 && g_[0]->number <= 923) axis_offsets();
   motion();
   stops();
 }
@@ -80,8 +82,9 @@ void Rs274BlockExecutor::classify() {
 void Rs274BlockExecutor::decide_motion() {
   const bool g53 = g_[0] && g_[0]->number == 530;
   previous_motion_ = in_.motion_mode_;
-  if (homing()) {
-    // The axis words belong to G28/G30 (the intermediate point).
+  if (takes_axis_words()) {
+    // The axis words belong to G28/G30 (the intermediate point), G10 (the
+    // origin) or G92 (the coordinates the current point is to have).
     if (g_[1] && g_[1]->number != 800 && axis_words())
       fail(g_[1]->column, g_name(g_[1]->number),
            g_name(g_[0]->number) + " and " + g_name(g_[1]->number) +
@@ -133,10 +136,10 @@ void Rs274BlockExecutor::check_letters() const {
     unused('k', "G2 or G3");
   }
   if (!arc && !cycle) unused('r', "G2, G3 or a canned cycle");
-  if (!(g_[0] && g_[0]->number == 40) && motion_ != 820 && motion_ != 890)
-    unused('p', "G4, G82 or G89");
+  if (!(g_[0] && g_[0]->number == 40) && motion_ != 820 && motion_ != 890 && !non_modal(100))
+    unused('p', "G4, G10, G82 or G89");
   if (motion_ != 830) unused('q', "G83");
-  if (!cycle) unused('l', "a canned cycle");
+  if (!cycle && !non_modal(100)) unused('l', "G10 or a canned cycle");
   if (!(g_[7] && g_[7]->number != 400)) unused('d', "G41 or G42");
   if (!(g_[8] && g_[8]->number == 430)) unused('h', "G43");
 }
@@ -227,10 +230,16 @@ ToolTableEntry Rs274BlockExecutor::tool_for(char letter, int number,
                                             const std::string& code) const {
   if (number == 0) return {};
   const auto* tool = find_tool(number);
-  if (tool == nullptr)
+  if (tool == nullptr) {
+    const char shown = letter == 'd' ? 'D' : 'H';
+    if (in_.options_.missing_tools_are_zero) {
+      in_.push(b_.line, MissingTool{number, shown});
+      return {number, 0, 0};
+    }
     fail(b_.has(letter) ? word(letter).column : g_[7]->column,
          b_.has(letter) ? upper(letter) : code,
          "tool " + std::to_string(number) + " is not in the tool table; add it or use another");
+  }
   return *tool;
 }
 
@@ -279,23 +288,103 @@ void Rs274BlockExecutor::length_offset() {
 
 void Rs274BlockExecutor::coordinate_system(int code) {
   const int index = code <= 590 ? (code - 540) / 10 + 1 : code - 591 + 7;
-  const int first = 5221 + 20 * (index - 1);
-  Point3 origin;
-  const std::string name = g_name(code);
-  if (in_.parameters_.valid(first + 2))
-    origin = {stored_length(first, g_[12]->column, name),
-              stored_length(first + 1, g_[12]->column, name),
-              stored_length(first + 2, g_[12]->column, name)};
-  const Point3 old = st_.work_offset_mm;
-  const Point3 shift{old.x - origin.x, old.y - origin.y, old.z - origin.z};
+  select_system(index, g_[12]->column, g_name(code));
+}
+
+void Rs274BlockExecutor::shift_origin(const Point3& old_total, const Point3& new_total) {
+  const Point3 shift{old_total.x - new_total.x, old_total.y - new_total.y,
+                     old_total.z - new_total.z};
   for (Point3* p : {&in_.position_, in_.programmed_ ? &*in_.programmed_ : nullptr}) {
     if (p == nullptr) continue;
     p->x += shift.x;
     p->y += shift.y;
     p->z += shift.z;
   }
+}
+
+void Rs274BlockExecutor::select_system(int index, int column, const std::string& code) {
+  const int first = 5221 + 20 * (index - 1);
+  Point3 origin;
+  if (in_.parameters_.valid(first + 2))
+    origin = {stored_length(first, column, code), stored_length(first + 1, column, code),
+              stored_length(first + 2, column, code)};
+  const Point3& g92 = st_.axis_offset_mm;
+  const Point3& old = st_.work_offset_mm;
+  shift_origin({old.x + g92.x, old.y + g92.y, old.z + g92.z},
+               {origin.x + g92.x, origin.y + g92.y, origin.z + g92.z});
   st_.coordinate_system = index;
   st_.work_offset_mm = origin;
+  if (in_.parameters_.valid(5220)) in_.parameters_.set(5220, index);
+}
+
+void Rs274BlockExecutor::coordinate_data() {
+  const int column = g_[0]->column;
+  if (!b_.has('l'))
+    fail(column, "G10",
+         "G10 needs L2 (set a coordinate system's origin) or L20 (set it so the current point "
+         "has the given coordinates)");
+  const int l = whole('l', 0, 1000, "L needs a whole number: L2 or L20 with G10");
+  if (l == 1)
+    fail(word('l').column, "L",
+         "G10 L1 (tool table data) is not supported by the checker; the tools come from the "
+         "job's [[tool]] tables");
+  if (l != 2 && l != 20) fail(word('l').column, "L", "G10 takes L2 or L20");
+  if (!b_.has('p')) fail(column, "G10", "G10 needs P, the coordinate system: 1 (G54) to 9 (G59.3)");
+  const int n = whole('p', 1, 9, "P needs a coordinate system from 1 (G54) to 9 (G59.3)");
+  const int first = 5221 + 20 * (n - 1);
+  if (!in_.parameters_.valid(first + 2))
+    fail(word('p').column, "P",
+         "parameter #" + std::to_string(first) + " is beyond this control's parameters");
+  const Point3 here = current_point();
+  const Point3& origin = st_.work_offset_mm;
+  const std::array<char, 3> letters{'x', 'y', 'z'};
+  const std::array<double, 3> at{here.x + origin.x, here.y + origin.y, here.z + origin.z};
+  for (std::size_t i = 0; i < 3; ++i) {
+    const char letter = letters[i];
+    if (!b_.has(letter)) continue;
+    const double value = length(letter);  // checks the range
+    const int number = first + static_cast<int>(i);
+    if (l == 2)
+      in_.parameters_.set(number, word(letter).value);
+    else
+      in_.parameters_.set(number, from_mm(at[i] - value, st_.program_units));
+  }
+  if (n == st_.coordinate_system) select_system(n, column, "G10");
+}
+
+void Rs274BlockExecutor::axis_offsets() {
+  const int code = g_[0]->number;
+  const int column = g_[0]->column;
+  const Point3 old = st_.axis_offset_mm;
+  Point3 offset = old;
+  if (code == 920) {
+    if (!axis_words())
+      fail(column, "G92", "G92 needs X, Y or Z: the coordinates the current point is to have");
+    const Point3 here = current_point();
+    const auto set = [&](char letter, double& value, double now, int number) {
+      if (!b_.has(letter)) return;
+      value = now - length(letter);
+      if (in_.parameters_.valid(number))
+        in_.parameters_.set(number, from_mm(value, st_.program_units));
+    };
+    set('x', offset.x, here.x + old.x, 5211);
+    set('y', offset.y, here.y + old.y, 5212);
+    set('z', offset.z, here.z + old.z, 5213);
+  } else if (code == 921 || code == 922) {
+    offset = {};
+    if (code == 921)
+      for (int number = 5211; number <= 5216; ++number)
+        if (in_.parameters_.valid(number)) in_.parameters_.set(number, 0);
+  } else {
+    const std::string name = g_name(code);
+    if (in_.parameters_.valid(5213))
+      offset = {stored_length(5211, column, name), stored_length(5212, column, name),
+                stored_length(5213, column, name)};
+  }
+  const Point3& w = st_.work_offset_mm;
+  shift_origin({w.x + old.x, w.y + old.y, w.z + old.z},
+               {w.x + offset.x, w.y + offset.y, w.z + offset.z});
+  st_.axis_offset_mm = offset;
 }
 
 void Rs274BlockExecutor::stops() {

@@ -28,6 +28,9 @@ class Rs274BlockExecutor {
   void classify();
 
   bool homing() const { return g_[0] && (g_[0]->number == 280 || g_[0]->number == 300); }
+  bool non_modal(int code) const { return g_[0] && g_[0]->number == code; }
+  // G28, G30, G10 and G92 take the axis words for themselves.
+  bool takes_axis_words() const { return homing() || non_modal(100) || non_modal(920); }
 
   // G28 / G30 (NISTIR 6556 section 3.5.9, from memory): rapid to the
   // intermediate point given by the axis words, if any, then rapid with all
@@ -66,6 +69,19 @@ class Rs274BlockExecutor {
   void compensation();
   void length_offset();
   void coordinate_system(int code);
+  // Makes system `index` (1..9) the selected one, its origin read from the
+  // parameters now; the current point keeps its machine position.
+  void select_system(int index, int column, const std::string& code);
+  // The current point gets new work coordinates for a changed origin or
+  // G92 offset (both machine coordinates).
+  void shift_origin(const Point3& old_total, const Point3& new_total);
+  // The point G10 L20 and G92 refer to: the programmed point while
+  // compensating, else the tool's.
+  Point3 current_point() const { return in_.programmed_ ? *in_.programmed_ : in_.position_; }
+  // G10 L2 / L20 (NISTIR 6556, section on G10, from memory).
+  void coordinate_data();
+  // G92, G92.1, G92.2, G92.3 (NISTIR 6556, section on G92, from memory).
+  void axis_offsets();
 
   // --- motion ---
   bool compensating() const;

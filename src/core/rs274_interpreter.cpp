@@ -1,3 +1,5 @@
+#include <cmath>
+
 #include <dovetailor/error.hpp>
 #include <dovetailor/rs274_interpreter.hpp>
 
@@ -10,12 +12,23 @@ Rs274Interpreter::Rs274Interpreter(ProgramSource& source, InterpreterOptions opt
   for (const auto& [number, value] : options_.parameters)
     if (parameters_.valid(number)) parameters_.set(number, value);
   state_.program_units = options_.initial_units;
-  if (parameters_.valid(5223)) {
-    const auto units = options_.initial_units;
-    state_.work_offset_mm = {to_mm(parameters_.get(5221), units),
-                             to_mm(parameters_.get(5222), units),
-                             to_mm(parameters_.get(5223), units)};
+  // The program starts in the system #5220 names (1 when it holds 0 or
+  // something else), with the G92 offset of #5211..#5213 (NISTIR 6556,
+  // parameters 5211-5216 and 5220, from memory).
+  const auto units = options_.initial_units;
+  const auto stored = [&](int number) {
+    return parameters_.valid(number) ? to_mm(parameters_.get(number), units) : 0.0;
+  };
+  int system = 1;
+  if (parameters_.valid(5220)) {
+    const double n = parameters_.get(5220);
+    if (n >= 1 && n <= 9 && n == std::floor(n)) system = static_cast<int>(n);
+    parameters_.set(5220, system);
   }
+  const int first = 5221 + 20 * (system - 1);
+  state_.coordinate_system = system;
+  state_.work_offset_mm = {stored(first), stored(first + 1), stored(first + 2)};
+  state_.axis_offset_mm = {stored(5211), stored(5212), stored(5213)};
   position_ = options_.start_mm;
 }
 

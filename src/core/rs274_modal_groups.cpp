@@ -58,20 +58,20 @@ int g_group(int code) {
     case 640:
       return 13;
     case 40:
+    case 100:
     case 280:
     case 300:
     case 530:
+    case 920:
+    case 921:
+    case 922:
+    case 923:
       return 0;
-    case 100:
     case 382:
     case 840:
     case 860:
     case 870:
     case 880:
-    case 920:
-    case 921:
-    case 922:
-    case 923:
       return -2;
     default:
       return -1;

@@ -24,16 +24,23 @@ void Rs274BlockExecutor::go_home() {
     in_.push_motion(b_.line, MotionKind::Rapid, path, {path}, 0);
     position = via;
   }
-  const int first = g_[0]->number == 280 ? 5161 : 5181;
-  Point3 home;
-  if (in_.parameters_.valid(first + 2))
-    home = {stored_length(first, g_[0]->column, code),
-            stored_length(first + 1, g_[0]->column, code),
-            stored_length(first + 2, g_[0]->column, code)};
-  const Point3 to{home.x - st_.work_offset_mm.x, home.y - st_.work_offset_mm.y,
-                  home.z - st_.work_offset_mm.z - st_.length_offset_mm};
+  const bool g28 = g_[0]->number == 280;
+  const int first = g28 ? 5161 : 5181;
+  const Point3& w = st_.work_offset_mm;
+  const Point3& g92 = st_.axis_offset_mm;
+  Point3 to;
+  if (const auto& rise = g28 ? in_.options_.g28_rise_to_mm : in_.options_.g30_rise_to_mm) {
+    to = {position.x, position.y, *rise - w.z - g92.z - st_.length_offset_mm};
+  } else {
+    Point3 home;
+    if (in_.parameters_.valid(first + 2))
+      home = {stored_length(first, g_[0]->column, code),
+              stored_length(first + 1, g_[0]->column, code),
+              stored_length(first + 2, g_[0]->column, code)};
+    to = {home.x - w.x - g92.x, home.y - w.y - g92.y, home.z - w.z - g92.z - st_.length_offset_mm};
+  }
   const PathSegment path{position, to, {}};
-  in_.push_motion(b_.line, MotionKind::Rapid, path, {path}, 0);
+  in_.push(b_.line, Motion{MotionKind::Rapid, path, {path}, 0, false, g28 ? 28 : 30});
   position = to;
 }
 
@@ -55,9 +62,11 @@ Point3 Rs274BlockExecutor::end_point() const {
     else
       value = incremental ? base_value + v : v;
   };
-  axis('x', end.x, st_.work_offset_mm.x, base.x);
-  axis('y', end.y, st_.work_offset_mm.y, base.y);
-  axis('z', end.z, st_.work_offset_mm.z + st_.length_offset_mm, in_.position_.z);
+  const Point3& w = st_.work_offset_mm;
+  const Point3& g92 = st_.axis_offset_mm;
+  axis('x', end.x, w.x + g92.x, base.x);
+  axis('y', end.y, w.y + g92.y, base.y);
+  axis('z', end.z, w.z + g92.z + st_.length_offset_mm, in_.position_.z);
   return end;
 }
 

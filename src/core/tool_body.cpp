@@ -92,7 +92,7 @@ BodyDimensions body_dimensions(const Tool& tool) {
   d.shank_assumed = !tool.shank_diameter;
   d.stickout_assumed = !tool.stickout;
   d.holder_diameter = tool.holder_diameter;
-  if (tool.kind == ToolKind::EndMill) {
+  if (tool.kind != ToolKind::Dovetail) {
     d.shank_diameter = tool.shank_diameter.value_or(tool.diameter);
     d.stickout = tool.stickout.value_or(tool.flute_length + 0.5 * d.shank_diameter);
     return d;
@@ -117,6 +117,20 @@ ToolBody tool_body(const Tool& tool, const ToolBodyOptions& options) {
   if (tool.kind == ToolKind::EndMill) {
     auto profile = tip_profile(big, 90, tool.corner_radius, options.chord_tolerance);
     profile.push_back({flutes_top, big});
+    body.sections.push_back({BodyPart::Flutes, std::move(profile)});
+  } else if (tool.kind == ToolKind::Drill || tool.kind == ToolKind::ChamferMill) {
+    // A cone about the axis from the tip's radius (0 for a drill's point)
+    // widening at half the included angle up to the diameter, then straight
+    // to the top of the flutes.
+    const bool drill = tool.kind == ToolKind::Drill;
+    const double included = drill ? tool.point_angle : tool.angle;
+    assert(included > 0 && included < 180);
+    const double tip = drill ? 0 : tool.tip_diameter / 2;
+    const double cone = (big - tip) / std::tan(radians(included / 2));
+    std::vector<ProfilePoint> profile{{0, 0}};
+    if (tip > 0) profile.push_back({0, tip});
+    profile.push_back({std::min(cone, flutes_top), big});
+    if (flutes_top > cone) profile.push_back({flutes_top, big});
     body.sections.push_back({BodyPart::Flutes, std::move(profile)});
   } else {
     assert(tool.angle > 0 && tool.angle < 90);
