@@ -595,6 +595,53 @@ TEST(checker, reader_errors_name_the_program_and_line) {
   testing::expect_input_error([&] { check(source, job); }, {"broken.ngc", "2"});
 }
 
+// The planner refuses exactly the jobs whose cutter body the checker finds
+// touching: over random jobs (tests/random_jobs.hpp: levels, body data
+// given, in part or left out, shanks that may be too thick), a plan it
+// accepts has no body_collision, and for a job it refuses for the neck,
+// shank or holder, the same plan cut with a slim body (the finishing
+// positions do not depend on the body) does collide when checked against
+// the real one.
+TEST(checker, planner_refuses_exactly_the_jobs_whose_cutter_body_the_checker_finds_touching) {
+  std::mt19937_64 rng(20261203);
+  int accepted = 0, refused = 0;
+  const int cases = testing::random_cases(300);
+  for (int i = 0; i < cases; ++i) {
+    SCOPED_TRACE(i);
+    Job job = testing::random_job(rng);
+    // Most of those cut in levels get a short stickout and a stout shank,
+    // often too stout for the slot (only there can the body reach down).
+    Tool& cutter = job.tools[1];
+    if (cutter.flute_length < job.dovetail.depth && i % 4 != 0) {
+      cutter.stickout = cutter.flute_length + cutter.diameter * 0.03 * (i % 10);
+      cutter.shank_diameter = cutter.diameter * (0.4 + 0.012 * (i % 50));
+      if (i % 3 == 0) cutter.holder_diameter = 2.5 * *cutter.shank_diameter;
+    }
+    try {
+      const Plan p = plan(job);
+      ++accepted;
+      const CheckReport r = check_text(program_from_plan(p), job, 3);
+      EXPECT_EQ(r.count(FindingKind::BodyCollision), 0) << describe(r);
+    } catch (const InputError& e) {
+      const bool body =
+          e.field() == "tool[T2]" && e.message().find("the cutting cone") == std::string::npos;
+      if (!body) continue;
+      ++refused;
+      Job slim = job;
+      Tool& slim_cutter = slim.tools[1];
+      slim_cutter.shank_diameter = slim_cutter.neck_diameter;
+      slim_cutter.holder_diameter.reset();
+      const Plan p = plan(slim);
+      const CheckReport r = check_text(program_from_plan(p), job, 3);
+      EXPECT_GT(r.count(FindingKind::BodyCollision), 0) << e.message() << "\n" << describe(r);
+    }
+  }
+  EXPECT_GT(accepted, 0);
+  // 21 of the usual 300 are refused for the body (fewer in the sanitizer's
+  // tenth of the cases).
+  EXPECT_GT(refused, cases >= 300 ? 10 : -1);
+}
+
 }  // namespace
 }  // namespace dovetailor
 

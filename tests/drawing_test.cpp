@@ -66,9 +66,10 @@ TEST(drawing, dimension_texts_are_the_plan_numbers) {
        {inches(p.final_reading.value), inches(p.target.width_bottom()),
         inches(p.target.width_top()), inches(p.target.depth), std::string("60\u00b0")})
     EXPECT_NE(svg.find(">" + text + "<"), std::string::npos) << text;
-  // 0.6189, 0.8750, 0.7307, 0.2500 in: the plan command's own figures.
-  EXPECT_NE(svg.find(">0.6189 in<"), std::string::npos);
-  EXPECT_NE(svg.find(">0.7307 in<"), std::string::npos);
+  // 0.6194, 0.8755, 0.7312, 0.2500 in: the plan command's own figures (the
+  // middle of the 0 to +0.001 in band).
+  EXPECT_NE(svg.find(">0.6194 in<"), std::string::npos);
+  EXPECT_NE(svg.find(">0.7312 in<"), std::string::npos);
 }
 
 // PNG signature and IHDR (ISO/IEC 15948, the PNG specification): bytes 16-23

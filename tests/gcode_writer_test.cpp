@@ -162,7 +162,7 @@ TEST(gcode_writer, parameter_style_sets_flank_offsets_and_writes_them_in_finishi
   EXPECT_NE(program.find("#101=0. #102=0."), std::string::npos);
   // Female right flank at +X of the cutter: raising #102 moves the cut to -X,
   // away from the flank, leaving stock.
-  EXPECT_NE(program.find("X[0.5748 - #102]"), std::string::npos);
+  EXPECT_NE(program.find("X[0.575 - #102]"), std::string::npos);
   EXPECT_EQ(program.find("G41"), std::string::npos);
   EXPECT_NE(program.find("- #102]"), std::string::npos);
   EXPECT_NE(program.find("+ #101]"), std::string::npos);

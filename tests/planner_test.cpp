@@ -79,9 +79,11 @@ bool cuts_part(const DovetailSection& s, const Tool& t, double x, double z) {
 }
 
 // The section at distance y along a tapered gib: the gib is thicker there
-// by y/N (planner convention, see undercut.cpp).
+// by y/N (planner convention, see undercut.cpp); the width at the middle of
+// its tolerance band, as the planner aims.
 DovetailSection section_at(const Job& job, double y) {
   DovetailSpec spec = job.dovetail;
+  spec.width += (spec.tolerance.lower + spec.tolerance.upper) / 2;
   if (spec.gib && spec.gib->taper > 0) spec.gib->thickness += y / spec.gib->taper;
   return section_of(spec);
 }
@@ -540,7 +542,8 @@ TEST(planner, random_cutters_a_little_off_angle_give_the_rolls_readings_of_their
     EXPECT_EQ(p.target.angle, a);
     const bool male = job.dovetail.type == DovetailType::Male;
     const int n = job.dovetail.sides == AngledSides::Both ? 2 : 1;
-    double w = design_width_bottom(job.dovetail);
+    // Aimed at the middle of the band (aimed_spec).
+    double w = design_width_bottom(aimed_spec(job.dovetail));
     if (job.dovetail.gib) w += (male ? -1 : 1) * job.dovetail.gib->thickness / std::sin(radians(a));
     EXPECT_NEAR(p.target.width_bottom(), w, 1e-9);
     const double k = 1 + 1 / std::tan(radians(a / 2));
@@ -598,7 +601,8 @@ TEST(planner, refuses_a_cutter_more_than_a_tenth_of_a_degree_off_either_way) {
 // deg, cot 22.45 deg = 2.4201851, M = 41.68074 mm (41.65685 mm at 45 deg).
 // The base-plane width is held, the top width follows the cutter's angle:
 // 28 + 2 x 6 cot(45.1 deg) = 39.95819 mm, 28 + 12 cot(44.9 deg) = 40.04196 mm.
-// The pin touches 2 (1 + cos 45.1 deg) = 3.41174 mm above the shelf.
+// The pin touches 2 (1 + cos 45.1 deg) = 3.41174 mm above the shelf. The
+// band is made symmetric here so that the aim (its middle) is the nominal.
 TEST(planner, a_cutter_within_a_tenth_of_a_degree_is_planned_at_its_own_angle) {
   struct Case {
     double angle, reading, top;
@@ -607,6 +611,7 @@ TEST(planner, a_cutter_within_a_tenth_of_a_degree_is_planned_at_its_own_angle) {
     SCOPED_TRACE(c.angle);
     Job job = sample("stop-block-male");
     job.tools[1].angle = c.angle;
+    job.dovetail.tolerance = {-0.02, 0.02};
     const Plan p = plan(job);
     EXPECT_EQ(p.target.angle, c.angle);
     EXPECT_NEAR(p.target.width_bottom(), 28.0, 1e-9);
@@ -649,7 +654,71 @@ TEST(planner, refuses_a_neck_that_would_hit_the_overhang) {
   // as the small diameter) rubs the mouth on the bottom level.
   job.tools[1].flute_length = to_mm(0.25, Units::Inch);
   job.tools[1].neck_diameter = to_mm(0.7, Units::Inch);
-  expect_input_error([&] { plan(job); }, {"tool[T2]", "neck or shank"});
+  expect_input_error([&] { plan(job); }, {"tool[T2]", "the neck at"});
+}
+
+// Machinery's Handbook, measuring dovetail slides with rolls: female
+// P = W - D (1 + cot(a/2)), male M = W + D (1 + cot(a/2)), written out.
+double rolls_reading(DovetailType type, double width_bottom, double pin, double angle) {
+  const double k = 1 + 1 / std::tan(radians(angle / 2));
+  return type == DovetailType::Female ? width_bottom - pin * k : width_bottom + pin * k;
+}
+
+TEST(planner, aims_the_final_width_at_the_middle_of_the_tolerance_band) {
+  // The stop rail (male, 28 mm at the shelf, -0.02 to 0 mm, 4 mm pins):
+  // aimed 0.01 mm under the nominal, inside the band however the control
+  // rounds its 3 decimals, not on the band's edge.
+  const Job job = sample("stop-block-male");
+  const Plan p = plan(job);
+  const double nominal = rolls_reading(DovetailType::Male, 28, 4, 45);
+  EXPECT_NEAR(p.target.width_bottom(), 28 - 0.01, 1e-9);
+  EXPECT_NEAR(p.final_reading.value, nominal - 0.01, 1e-9);
+  const ReadingBand band = final_reading_band(p);
+  EXPECT_NEAR(band.low, nominal - 0.02, 1e-9);
+  EXPECT_NEAR(band.high, nominal, 1e-9);
+  EXPECT_NEAR(p.checkpoints.back().expected.value, p.final_reading.value, 1e-12);
+}
+
+TEST(planner, a_band_that_excludes_the_nominal_is_aimed_inside_it) {
+  // A female held 0.02 to 0.05 mm wide of its nominal (a sliding fit cut
+  // from the nominal of the mate): the nominal itself is out of the band.
+  Job job = sample("stop-block-male");
+  job.dovetail.type = DovetailType::Female;
+  job.dovetail.width = 60;
+  job.dovetail.width_at = WidthAt::Bottom;
+  job.dovetail.tolerance = {0.02, 0.05};
+  job.tools[0].diameter = 20;
+  job.stock.width = 110;
+  const Plan p = plan(job);
+  const double nominal = rolls_reading(DovetailType::Female, 60, 4, 45);
+  EXPECT_NEAR(p.final_reading.value, nominal + 0.035, 1e-9);
+  const ReadingBand band = final_reading_band(p);
+  EXPECT_NEAR(band.low, nominal + 0.02, 1e-9);
+  EXPECT_NEAR(band.high, nominal + 0.05, 1e-9);
+  for (const auto* pass : all_passes(p))
+    if (pass->role == PassRole::Finish) {
+      // The cone's edge at the tip lands on the aimed flank: 0.0175 mm
+      // outside the nominal one on each side.
+      const double nominal_edge = (pass->side == Side::Right ? 1 : -1) * 30.0;
+      const double edge = pass->x + (pass->side == Side::Right ? 1 : -1) * 12.5;
+      EXPECT_NEAR(edge - nominal_edge, (pass->side == Side::Right ? 1 : -1) * 0.0175, 1e-9);
+    }
+}
+
+TEST(planner, level_tips_sit_on_whole_thousandths_so_every_level_rounds_alike) {
+  Job job = base_job();
+  job.tools[1].flute_length = to_mm(0.25, Units::Inch);
+  job.tools[1].neck_diameter = to_mm(0.25, Units::Inch);
+  const Plan p = plan(job);
+  const double depth = p.target.depth;
+  int levels = 0;
+  for (const auto* pass : all_passes(p)) {
+    if (pass->role != PassRole::Finish || pass->side != Side::Right) continue;
+    ++levels;
+    const double tip = from_mm(pass->z + depth, Units::Inch) * 1000;
+    EXPECT_NEAR(tip, std::round(tip), 1e-9) << "pass " << pass->number;
+  }
+  EXPECT_EQ(levels, 2);
 }
 
 TEST(planner, refuses_a_pin_that_sits_on_the_corner_fillet) {

@@ -2,8 +2,13 @@
 
 // Random valid jobs for property tests: male and female, both or one angled
 // flank, angles 45 to 60 deg, inch and mm, with and without a gib, with an
-// end mill and a dovetail cutter sized to fit. Fixed seeds keep runs
-// repeatable. The numbers are invented; only their relations matter.
+// end mill and a dovetail cutter sized to fit. A quarter have a dovetail
+// cutter with flutes shorter than the depth (cut in levels); a third a
+// tolerance band of their own, half of those excluding the nominal (as
+// [+0.02, +0.05] mm on a female); the cutter's shank, stickout and holder are
+// given, given in part or left to the defaults, and a given shank may be too
+// thick for a deep slot (the planner must refuse those). Fixed seeds keep
+// runs repeatable. The numbers are invented; only their relations matter.
 
 #include <algorithm>
 #include <cmath>
@@ -58,12 +63,23 @@ inline Job random_job(std::mt19937_64& rng, const RandomJobOptions& options = {}
   cutter.angle = d.angle;
   cutter.flutes = 6;
   cutter.material = unit(rng) < 0.7 ? ToolMaterial::Hss : ToolMaterial::Carbide;
-  cutter.flute_length = d.depth * between(1.05, 1.4);
-  const double run = cutter.flute_length * cot;
+  const bool levels = unit(rng) < 0.25;
+  cutter.flute_length = d.depth * (levels ? between(0.45, 0.95) : between(1.05, 1.4));
+  const double run = std::max(cutter.flute_length, d.depth) * cot;
   cutter.diameter = 2 * run + between(0.25, 0.5) * in;
-  const double small = cutter.diameter - 2 * run;
+  const double small = cutter.diameter - 2 * cutter.flute_length * cot;
   cutter.neck_diameter = std::min(small, cutter.diameter - 2 * d.depth * cot) * between(0.6, 0.95);
   cutter.corner_radius = unit(rng) < 0.5 ? 0 : 0.005 * in;
+  // Body data: all given, in part, or none (the defaults of tool_body.hpp).
+  const double body = unit(rng);
+  if (body < 0.6) {
+    if (unit(rng) < 0.7)
+      cutter.shank_diameter = std::max(cutter.neck_diameter, cutter.diameter * between(0.3, 0.9));
+    if (unit(rng) < 0.7)
+      cutter.stickout = cutter.flute_length + cutter.diameter * between(0.05, 2.0);
+    if (unit(rng) < 0.4)
+      cutter.holder_diameter = cutter.shank_diameter.value_or(cutter.diameter) * between(1.5, 3);
+  }
   // Widths: the female floor at least the cutter diameter plus room for the
   // neck; the male root at least a pin's worth.
   Tool mill;
@@ -105,6 +121,16 @@ inline Job random_job(std::mt19937_64& rng, const RandomJobOptions& options = {}
     d.length = job.stock.length * 0.8;
   }
   d.tolerance = default_tolerance(d.type, job.units);
+  if (unit(rng) < 0.35) {
+    // A band of the job's own: 0.0004 to 0.003 in or 0.01 to 0.08 mm wide,
+    // straddling the nominal or (half of them) wholly on the side that
+    // leaves room to fit (wider female, narrower male).
+    const double band =
+        job.units == Units::Inch ? to_mm(between(0.0004, 0.003), Units::Inch) : between(0.01, 0.08);
+    const double lower = unit(rng) < 0.5 ? between(0.1, 1.0) * band : -between(0.0, 1.0) * band;
+    d.tolerance = {lower, lower + band};
+    if (d.type == DovetailType::Male) d.tolerance = {-d.tolerance.upper, -d.tolerance.lower};
+  }
   job.tools = {mill, cutter};
   // A pin touching in the middle of the flank and clear of the corner radius.
   Gauge g;

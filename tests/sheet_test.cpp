@@ -73,10 +73,12 @@ TEST(sheet, every_sample_fits_80_columns_in_ascii) {
 
 // Hand-worked from the sample's [machine] block. X zero: the 0.200 in edge
 // finder on the left face of 2.000 in stock centred on x = -0.125 in, so the
-// axis stands at -1.125 - 0.100 = -1.225 in. Pass 3 runs at x = -0.0332 in:
-// 1.1918 in from the zero = 1191.8 graduations of 0.001 in -> 1192 = 5 turns
-// of 200 + 192. Pass 1's tip at z = -0.2450 in, zeroed over a 0.002 in paper:
-// 0.2470 in down = 247 graduations of 0.001 in (0.100 in / 100) = 2 turns + 47.
+// axis stands at -1.125 - 0.100 = -1.225 in. Pass 3 runs at x = -0.0334 in
+// (the slot's wall 0.00025 in further out than for the nominal width: the
+// plan aims at the middle of the 0 to +0.001 in band): 1.1916 in from the
+// zero = 1191.6 graduations of 0.001 in -> 1192 = 5 turns of 200 + 192. Pass 1's tip at z = -0.2450
+// in, zeroed over a 0.002 in paper: 0.2470 in down = 247 graduations of 0.001 in (0.100 in / 100) =
+// 2 turns + 47.
 TEST(sheet, dial_settings_are_the_hand_worked_ones) {
   const Plan p = plan_of(manual_sample);
   ASSERT_TRUE(p.job.machine.manual.has_value());
@@ -84,7 +86,7 @@ TEST(sheet, dial_settings_are_the_hand_worked_ones) {
   const Sheet sheet = build_sheet(p, {});
   ASSERT_TRUE(sheet.has_dials);
   const Row third = pass_row(sheet, 3);
-  EXPECT_EQ(third.at("X"), "-0.0332");
+  EXPECT_EQ(third.at("X"), "-0.0334");
   // Pass 2 was at 0.1775 in (7+3): pass 3 lies behind it, so it is marked.
   EXPECT_EQ(third.at("X dial"), "5+192*");
   const Row first = pass_row(sheet, 1);

@@ -2,6 +2,7 @@
 
 #include <gtest/gtest.h>
 
+#include <dovetailor/deflection.hpp>
 #include <dovetailor/tool_body.hpp>
 
 namespace dovetailor {
@@ -75,13 +76,46 @@ TEST(tool_body, dovetail_parts_stack_up_to_the_holder) {
   EXPECT_EQ(body.sections[1].part, BodyPart::Neck);
   EXPECT_EQ(body.sections[2].part, BodyPart::Shank);
   EXPECT_EQ(body.sections[3].part, BodyPart::Holder);
-  // Neck defaults to the flute length; shank runs to the stickout.
-  EXPECT_NEAR(body.sections[1].top(), 2 * 7.9375, 1e-12);
+  // The neck is assumed half the large diameter long; the shank runs to the
+  // stickout.
+  EXPECT_NEAR(body.sections[1].top(), 7.9375 + 19.05 / 2, 1e-12);
   EXPECT_NEAR(body.radius_at(10), 4.5, 1e-12);
   EXPECT_NEAR(body.radius_at(30), 9.525 / 2, 1e-12);
   EXPECT_NEAR(body.radius_at(50), 16, 1e-12);
   EXPECT_EQ(body.top(), 1000);
   EXPECT_EQ(body_part_name(body.sections[1].part), "neck");
+}
+
+// What the job leaves out is assumed once, for the planner, the deflection
+// beam and the checker alike (tool_body.hpp): a neck half the large diameter
+// long, a shank half the large diameter (not less than the neck), a stickout
+// of flutes + neck + shank, and no holder without a holder diameter.
+TEST(tool_body, a_cutter_without_body_data_gets_the_one_set_of_assumptions) {
+  Tool t = dovetail_cutter();
+  t.shank_diameter.reset();
+  t.stickout.reset();
+  t.holder_diameter.reset();
+  const BodyDimensions d = body_dimensions(t);
+  EXPECT_TRUE(d.shank_assumed);
+  EXPECT_TRUE(d.stickout_assumed);
+  EXPECT_NEAR(d.neck_length, 19.05 / 2, 1e-12);
+  EXPECT_NEAR(d.shank_diameter, 19.05 / 2, 1e-12);
+  EXPECT_NEAR(d.stickout, 7.9375 + 19.05 / 2 + 19.05 / 2, 1e-12);
+  EXPECT_FALSE(d.holder_diameter);
+  const ToolBody body = tool_body(t);
+  ASSERT_EQ(body.sections.size(), 3u);
+  EXPECT_NEAR(body.sections[1].top(), 7.9375 + 19.05 / 2, 1e-12);
+  EXPECT_NEAR(body.radius_at(20), 19.05 / 4, 1e-12);
+  EXPECT_NEAR(body.radius_at(500), 19.05 / 4, 1e-12);
+  // The beam the deflection is worked out on has the same parts.
+  const ToolBeam beam = tool_beam(t);
+  ASSERT_EQ(beam.sections.size(), 3u);
+  EXPECT_NEAR(beam.length(), d.stickout, 1e-12);
+  EXPECT_NEAR(beam.sections[1].length, d.neck_length, 1e-12);
+  EXPECT_NEAR(beam.sections[0].diameter, d.shank_diameter, 1e-12);
+  // A holder diameter alone puts the holder at the assumed stickout.
+  t.holder_diameter = 32;
+  EXPECT_NEAR(tool_body(t).radius_at(d.stickout + 1), 16, 1e-12);
 }
 
 TEST(tool_body, end_mill_defaults_shank_to_its_diameter_without_holder) {

@@ -45,15 +45,17 @@ double stock_from_pins(const Plan& p, double reading) {
 
 TEST(trim, over_cut_is_refused_with_how_much) {
   const Plan p = sample_plan("fixture-slide-female");
-  // Checkpoint C expects 1.3583 in; good to 1.3593 in. 1.3613 in is 0.0030 in
-  // over size, 0.0015 in past size on each flank.
+  // Checkpoint C expects 1.3588 in (the middle of the band); good to 1.3593
+  // in. 1.3613 in is 0.0030 in over the nominal size, 0.00125 in past the
+  // final size on each flank.
   const Trim t = trim(p, {.checkpoint = 2, .reading = inch(1.3613)});
   EXPECT_EQ(t.verdict, TrimVerdict::OverCut);
   EXPECT_TRUE(t.passes.operations.empty());
   const std::string text = flat(format_trim(p, t, SizingStyle::CutterCompensation));
   EXPECT_NE(text.find("STOP"), std::string::npos) << text;
   EXPECT_NE(text.find("0.0030 in over size"), std::string::npos) << text;
-  EXPECT_NE(text.find("0.0015 in on each angled flank"), std::string::npos) << text;
+  EXPECT_NE(text.find("0.0013 in past the final size on each angled flank"), std::string::npos)
+      << text;
 }
 
 TEST(trim, male_cut_past_size_is_under_size) {
@@ -81,7 +83,9 @@ TEST(trim, stock_left_after_finishing_gives_passes_and_the_offset_change) {
   EXPECT_NEAR(t.offset_change, -inch(0.0005), 1e-9);
   const std::string text = flat(format_trim(p, t, SizingStyle::CutterCompensation));
   EXPECT_NE(text.find("D2 by -0.0005 in on the radius"), std::string::npos) << text;
-  EXPECT_NE(text.find("Expect after the trim: 1.3583 in"), std::string::npos) << text;
+  EXPECT_NE(text.find("Expect after the trim: 1.3588 in (good from 1.3583 to 1.3593 in)"),
+            std::string::npos)
+      << text;
   const std::string params = flat(format_trim(p, t, SizingStyle::Parameters));
   EXPECT_NE(params.find("add -0.0005 in to #101 and #102"), std::string::npos) << params;
 }
@@ -156,8 +160,9 @@ TEST(trim, over_cut_property_over_random_readings) {
     const Checkpoint& c = p.checkpoints[k];
     const auto& tol = p.job.dovetail.tolerance;
     const int n = p.target.angled_flanks();
-    // Cut past size by more than the tolerance allows.
-    const double band = p.target.type == DovetailType::Female ? tol.upper : -tol.lower;
+    // Cut past size by more than the tolerance allows: the final size is the
+    // middle of the band, half the band from its edge.
+    const double band = (tol.upper - tol.lower) / 2;
     const double stock = -(band / n + 1e-4 + unit(rng) * inch(0.005));
     const double reading = c.expected.value + stock / c.correction_per_reading;
     EXPECT_EQ(trim(p, {.checkpoint = k, .reading = reading}).verdict, TrimVerdict::OverCut);
@@ -201,7 +206,7 @@ TEST(trim, sheet_gives_cross_slide_moves_per_flank) {
   ASSERT_EQ(t.verdict, TrimVerdict::Trim);
   EXPECT_NEAR(t.flanks.front().now, inch(0.002), 1e-9);
   const std::string sheet = flat(trim_sheet(p, t));
-  EXPECT_NE(sheet.find("left flank: set X -0.0645 (move 0.0020 in -X, toward the flank)"),
+  EXPECT_NE(sheet.find("left flank: set X -0.0648 (move 0.0020 in -X, toward the flank)"),
             std::string::npos)
       << sheet;
   EXPECT_NE(sheet.find("toward the flank"), std::string::npos) << sheet;
@@ -218,7 +223,7 @@ TEST(trim, corrective_program_uses_the_post_sizing_style) {
   EXPECT_NE(program.find("G41 G1"), std::string::npos);
   EXPECT_EQ(program.find("G42 G1"), std::string::npos);
   EXPECT_NE(program.find("CHECKPOINT A: after the trim"), std::string::npos);
-  EXPECT_NE(program.find("expect 1.3583 in"), std::string::npos);
+  EXPECT_NE(program.find("expect 1.3588 in"), std::string::npos);
 }
 
 }  // namespace

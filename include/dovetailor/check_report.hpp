@@ -79,9 +79,10 @@ struct StationResult {
   double target_width_bottom = 0;
   double target_width_top = 0;
   PinReading target_reading;
-  // The reading is good from target + tolerance.lower to target +
-  // tolerance.upper (the pin reading moves one for one with the width at the
-  // base plane, pin_gauge.hpp).
+  // The target is the middle of the width tolerance band (aimed_spec in
+  // dovetail_section.hpp); the reading is good from target + tolerance.lower
+  // - m to target + tolerance.upper - m, m = band_middle(tolerance) (the pin
+  // reading moves one for one with the width at the base plane, pin_gauge.hpp).
   bool reading_in_tolerance = false;
   // The regions behind the figures, for drawing (check_drawing.hpp), as
   // rings in section coordinates (mm; outer rings counter-clockwise, holes

@@ -4,6 +4,7 @@
 
 #include <dovetailor/job.hpp>
 #include <dovetailor/material_table.hpp>
+#include <dovetailor/tool_body.hpp>
 
 namespace dovetailor {
 
@@ -56,24 +57,16 @@ struct BeamSection {
 double stepped_cantilever_deflection(double force, double load_at,
                                      const std::vector<BeamSection>& sections, double modulus);
 
-// The assumptions for a tool's body where the job leaves them out. All are
-// this project's assumptions, chosen from common tool proportions (from
-// memory), on the cautious side:
-// - the fluted length bends like a round bar of 0.8 x its diameter (flutes
-//   remove core; 0.8 is a figure often used for the equivalent diameter,
-//   from memory); for a dovetail cutter, 0.8 x the cone's small diameter but
-//   not less than the neck;
-// - a dovetail cutter's neck is 0.5 x the large diameter long;
-// - the shank is as large as the cutter (end mill) or half the large
-//   diameter but not less than the neck (dovetail cutter);
-// - the stickout (holder face to tip) is the flute length plus 0.5 x the
-//   diameter of shank (end mill), or the flute length plus the neck plus one
-//   shank diameter (dovetail cutter).
+// The fluted length bends like a round bar of 0.8 x its diameter (flutes
+// remove core; 0.8 is a figure often used for the equivalent diameter, from
+// memory); for a dovetail cutter, 0.8 x the cone's small diameter but not
+// less than the neck. This project's assumption, on the cautious side.
 inline constexpr double fluted_diameter_factor = 0.8;
-inline constexpr double neck_length_factor = 0.5;
 
-// A tool as a stepped cantilever, holder face first, with the assumptions
-// above where the job gives no body data.
+// A tool as a stepped cantilever, holder face first: neck, shank and
+// stickout are body_dimensions(tool) (tool_body.hpp), the model the planner's
+// clearance checks and the checker share, with its assumptions where the job
+// gives no body data.
 struct ToolBeam {
   std::vector<BeamSection> sections;  // from the holder face to the tip
   double modulus = 0;                 // N/mm^2

@@ -56,6 +56,18 @@ double width_bottom_from_top(DovetailType type, double width_top, double depth, 
 // The section of a job's dovetail. Does not validate; the job reader does.
 DovetailSection section_of(const DovetailSpec& spec);
 
+// The middle of a width tolerance band, (lower + upper) / 2: how far from the
+// nominal the planner aims the finished width. There a control's positioning
+// step (half its last decimal on each flank) stays inside the band whichever
+// side of the nominal the band lies, and a band that excludes the nominal
+// (say [+0.02, +0.05] mm) is hit at all.
+double band_middle(const Tolerance& tolerance);
+
+// The spec with its width moved to the middle of its tolerance band: the
+// dovetail the planner cuts and the checker measures against. The tolerance
+// is left as the job gives it (on the nominal width).
+DovetailSpec aimed_spec(const DovetailSpec& spec);
+
 // How fast a flank moves sideways along the slide, dx/dy: non-zero only for
 // the flank of a tapered gib. The gib thickens by 1/N per unit length toward
 // the back end (+Y), so its flank moves out (female) or in (male) by

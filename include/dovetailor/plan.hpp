@@ -104,8 +104,10 @@ struct Checkpoint {
 };
 
 struct Plan {
-  Job job;                 // as planned (a mate is already resolved into the width)
-  DovetailSection target;  // the finished section
+  Job job;  // as planned (a mate is already resolved into the width)
+  // The finished section, aimed at the middle of the width tolerance band
+  // (section_of(aimed_spec(job.dovetail))), and its reading.
+  DovetailSection target;
   PinReading final_reading;
   double safe_z = 0;     // rapids at or above this height
   double clearance = 0;  // how far outside the stock the tools enter and leave
@@ -116,6 +118,15 @@ struct Plan {
 
   bool operator==(const Plan&) const = default;
 };
+
+// Where the final reading is good: the job's width tolerance around the
+// nominal width (the reading moves one for one with the width at the base
+// plane, pin_gauge.hpp). The final reading lies in its middle.
+struct ReadingBand {
+  double low = 0;
+  double high = 0;
+};
+ReadingBand final_reading_band(const Plan& plan);
 
 // All passes of the plan in order.
 std::vector<const Pass*> all_passes(const Plan& plan);

@@ -1,5 +1,6 @@
 #pragma once
 
+#include <optional>
 #include <string_view>
 #include <vector>
 
@@ -54,14 +55,43 @@ struct ToolBody {
   double radius_at(double h) const;
 };
 
-// How the body is built where the tool data leaves things open.
+// The tool's body data with the job's gaps filled: the one model of the
+// cutter body that the planner's clearance checks, the deflection beam
+// (deflection.hpp) and the checker's sweep all build on, so that they agree
+// on what touches. Where the job leaves them out, this project's
+// assumptions, from common tool proportions (from memory), apply:
+//  - a dovetail cutter's neck is 0.5 x its large diameter long (and ends at
+//    the stickout when that is shorter);
+//  - the shank is as large as the cutter (end mill), or half the large
+//    diameter but not less than the neck (dovetail cutter);
+//  - the stickout (holder face to tip) is the flute length plus 0.5 x the
+//    shank diameter (end mill), or the flute length plus the neck plus one
+//    shank diameter (dovetail cutter);
+//  - the holder is there only when its diameter is given: from the stickout
+//    (given or assumed) up. Without it the shank runs on upward.
+inline constexpr double neck_length_factor = 0.5;
+
+struct BodyDimensions {
+  double neck_diameter = 0;  // dovetail cutter; 0 for an end mill
+  double neck_length = 0;    // from the top of the flutes; 0 for an end mill
+  double shank_diameter = 0;
+  double stickout = 0;  // holder face to tip
+  std::optional<double> holder_diameter;
+  bool shank_assumed = false;
+  bool stickout_assumed = false;
+
+  bool operator==(const BodyDimensions&) const = default;
+};
+
+// The tool data must be valid as the job reader checks it (positive
+// diameters, a stickout no shorter than the flutes).
+BodyDimensions body_dimensions(const Tool& tool);
+
+// How the body is turned into profiles.
 struct ToolBodyOptions {
   // Corner radii are replaced by chords no further than this from the true
   // arc, always inside it (mm); 0.1 um is 1/200 of a 0.02 mm tolerance.
   double chord_tolerance = 1e-4;
-  // Length of a dovetail cutter's neck above the flutes when not known:
-  // 0 means "as long as the flute length" (an assumption, no source).
-  double neck_length = 0;
   // How far the topmost part (shank, or holder when its diameter is given)
   // reaches above the tip: far above any stock, so that plunging deep never
   // leaves a phantom gap above the tool.
@@ -84,14 +114,10 @@ struct ToolBodyOptions {
 // cone of its included angle from the tip diameter up to the diameter, then
 // the diameter to the flute length. Both then the shank.
 //
-// Defaults, where the tool data has no value:
-//  - shank diameter: the tool's diameter (for a dovetail cutter, its large
-//    diameter: on the safe side, a touch it reports means "give the shank");
-//  - stickout (holder face to tip): none, the shank runs up to body_top;
-//  - holder: only when both holder_diameter and stickout are given, from the
-//    stickout up to body_top.
-// The tool data must be valid as the job reader checks it (positive
-// diameters, a cone that does not close within the flutes).
+// Neck, shank, stickout and holder are body_dimensions(tool): where the job
+// leaves them out, its assumptions. The tool data must be valid as the job
+// reader checks it (positive diameters, a cone that does not close within
+// the flutes).
 ToolBody tool_body(const Tool& tool, const ToolBodyOptions& options = {});
 
 }  // namespace dovetailor

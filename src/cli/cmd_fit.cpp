@@ -57,10 +57,14 @@ struct FitResult {
   double male_depth = 0;
   double female_gib = 0;  // lateral gib allowances in the readings
   double male_gib = 0;
+  bool as_planned = false;  // from job files: each part at the middle of its band
 };
 
+// A job's part as the planner cuts it: at the middle of its tolerance band.
+DovetailSection planned_section(const Job& job) { return section_of(aimed_spec(job.dovetail)); }
+
 MeasuredPart part_from_job(const Job& job) {
-  const auto section = section_of(job.dovetail);
+  const auto section = planned_section(job);
   if (!job.gauge)
     throw InputError("needs [gauge] pin_diameter to state its reading", {job.source},
                      "gauge.pin_diameter");
@@ -95,15 +99,16 @@ FitResult fit_from_jobs(const FitOptions& o) {
   r.units = female.units;
   r.angle = female.dovetail.angle;
   r.angled_flanks = female.dovetail.sides == AngledSides::Both ? 2 : 1;
-  r.fit = fit_of(section_of(female.dovetail), section_of(male.dovetail));
+  r.fit = fit_of(planned_section(female), planned_section(male));
+  r.as_planned = true;
   if (female.gauge) r.female = part_from_job(female);
   if (male.gauge) r.male = part_from_job(male);
   r.female_pin = female.gauge ? female.gauge->pin_diameter : 0;
   r.male_pin = male.gauge ? male.gauge->pin_diameter : 0;
   r.female_depth = female.dovetail.depth;
   r.male_depth = male.dovetail.depth;
-  r.female_gib = section_of(female.dovetail).gib_allowance;
-  r.male_gib = section_of(male.dovetail).gib_allowance;
+  r.female_gib = planned_section(female).gib_allowance;
+  r.male_gib = planned_section(male).gib_allowance;
   if (!std::isnan(o.clearance)) r.clearance = to_mm(o.clearance, r.units);
   return r;
 }
@@ -245,6 +250,8 @@ void print_text(const FitResult& r) {
     for (const auto& line : wrap_words(note, 80)) fmt::print("{}\n", line);
   }
   fmt::print("\n{}\n", convention);
+  if (r.as_planned)
+    fmt::print("From the job files: each part as planned, at the middle of its width tolerance.\n");
 }
 
 void print_json(const FitResult& r) {

@@ -41,6 +41,9 @@ struct PinsCase {
   Units units = Units::Inch;
   DovetailSection section;
   Tolerance tolerance;
+  // How far the reading to aim at lies from the nominal one: the middle of
+  // the tolerance band, as the planner aims (0 for a measured --reading).
+  double aim = 0;
   double pin = 0;
   double corner_radius = 0;
   std::optional<StockFaces> stock;  // known from a job: a male's pins must rest on its shelf
@@ -80,6 +83,7 @@ PinsCase case_from_job(const PinsOptions& o) {
   c.title = job.part.name.empty() ? o.job_file : job.part.name;
   c.section = section_of(job.dovetail);
   c.tolerance = job.dovetail.tolerance;
+  c.aim = band_middle(c.tolerance);
   c.source = o.job_file;
   c.stock = stock_faces(job);
   if (!std::isnan(o.pin)) {
@@ -131,6 +135,7 @@ PinsCase case_from_flags(const PinsOptions& o) {
     throw InputError("must be smaller than the depth", {"flags"}, "--chamfer");
   c.section = section_of(spec);
   c.tolerance = default_tolerance(spec.type, c.units);
+  if (std::isnan(o.reading)) c.aim = band_middle(c.tolerance);
   c.title = "Dovetail given by flags";
   return c;
 }
@@ -155,10 +160,11 @@ void print_text(const PinsCase& c) {
     row(fmt::format("Gib allowance ({} flank)", *s.gib_side == Side::Left ? "left" : "right"),
         length(s.gib_allowance, u) + " (included above)");
   fmt::print("\n");
-  row(method_text(r), fmt::format("{}   with {} pin{}", length(r.value, u), length(c.pin, u),
-                                  r.pins == 1 ? "" : "s"));
+  row(method_text(r), fmt::format("{}   with {} pin{}", length(r.value + c.aim, u),
+                                  length(c.pin, u), r.pins == 1 ? "" : "s"));
   row("  good from", fmt::format("{} to {}", number(r.value + c.tolerance.lower, u),
                                  length(r.value + c.tolerance.upper, u)));
+  if (c.aim != 0) row("  nominal (the widths above)", length(r.value, u) + "; aim at the middle");
   const double h = contact_height(c.pin, s.angle);
   row("Pin touches the flank at", fmt::format("{} above the base ({:.0f} % of the flank)",
                                               length(h, u), 100 * h / (s.depth - s.chamfer)));
@@ -191,7 +197,8 @@ void print_json(const PinsCase& c) {
   j["method"] = method_key(r);
   j["pins"] = r.pins;
   j["pin_diameter"] = json_length(c.pin, u);
-  j["reading"] = json_length(r.value, u);
+  j["reading"] = json_length(r.value + c.aim, u);
+  j["reading_nominal"] = json_length(r.value, u);
   j["reading_min"] = json_length(r.value + c.tolerance.lower, u);
   j["reading_max"] = json_length(r.value + c.tolerance.upper, u);
   j["width_bottom"] = json_length(s.width_bottom(), u);

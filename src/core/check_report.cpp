@@ -235,12 +235,13 @@ std::string format_check_report(const CheckReport& r) {
   if (!r.stations.empty()) {
     const StationResult& s0 = r.stations.front();
     out += "\n";
-    para(
-        out,
-        fmt::format("Readings ({}), {} of {} {}; width tolerance {:+.{}f} to {:+.{}f} {}", sym,
-                    method_words(s0.target_reading.method), num(s0.target_reading.pin_diameter),
-                    sym, from_mm(r.tolerance.lower, u), dp, from_mm(r.tolerance.upper, u), dp, sym),
-        "");
+    para(out,
+         fmt::format("Readings ({}), {} of {} {}; width tolerance {:+.{}f} to {:+.{}f} {}, the "
+                     "target at its middle",
+                     sym, method_words(s0.target_reading.method),
+                     num(s0.target_reading.pin_diameter), sym, from_mm(r.tolerance.lower, u), dp,
+                     from_mm(r.tolerance.upper, u), dp, sym),
+         "");
     out += fmt::format("  {:>9} {:>10} {:>10} {:>9}\n", "y", "reading", "target", "error");
     for (const StationResult& s : r.stations) {
       const auto& m = s.measured;

@@ -62,9 +62,9 @@ PlannerRules planner_rules(const Job& job) {
 StationTarget target_at(const Job& job, double y, int id, double allowance) {
   StationTarget t;
   t.id = id;
-  // The section the job's dovetail cutter cuts: at its own angle when that
-  // is within the planner's tolerance (planner.hpp, dovetail_as_cut).
-  t.section = section_at(dovetail_as_cut(job), y);
+  // Aimed at the middle of the width band (aimed_spec). The section the job's dovetail cutter cuts:
+  // at its own angle when that is within the planner's tolerance (planner.hpp, dovetail_as_cut).
+  t.section = section_at(aimed_spec(dovetail_as_cut(job)), y);
   t.allowance = allowance;
   t.part = SectionRegion::from_ring(
       part_outline(t.section, stock_left_x(job), stock_right_x(job), job.stock.height));

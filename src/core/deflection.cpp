@@ -55,23 +55,17 @@ ToolBeam tool_beam(const Tool& tool) {
   assert(tool.diameter > 0 && tool.flute_length > 0);
   ToolBeam beam;
   beam.modulus = youngs_modulus(tool.material);
-  beam.shank_assumed = !tool.shank_diameter;
-  beam.stickout_assumed = !tool.stickout;
-  if (tool.kind == ToolKind::EndMill) {
-    const double shank = tool.shank_diameter.value_or(tool.diameter);
-    const double length = tool.stickout.value_or(tool.flute_length + 0.5 * shank);
-    beam.sections = {{length - tool.flute_length, shank},
+  const BodyDimensions d = body_dimensions(tool);
+  beam.shank_assumed = d.shank_assumed;
+  beam.stickout_assumed = d.stickout_assumed;
+  if (tool.kind != ToolKind::Dovetail) {
+    beam.sections = {{d.stickout - tool.flute_length, d.shank_diameter},
                      {tool.flute_length, fluted_diameter_factor * tool.diameter}};
   } else {
     const double small = tool.diameter - 2 * tool.flute_length / std::tan(radians(tool.angle));
-    const double head = std::max(tool.neck_diameter, fluted_diameter_factor * small);
-    const double shank =
-        tool.shank_diameter.value_or(std::max(tool.neck_diameter, 0.5 * tool.diameter));
-    double neck = neck_length_factor * tool.diameter;
-    const double length = tool.stickout.value_or(tool.flute_length + neck + shank);
-    neck = std::min(neck, length - tool.flute_length);
-    beam.sections = {{length - tool.flute_length - neck, shank},
-                     {neck, tool.neck_diameter},
+    const double head = std::max(d.neck_diameter, fluted_diameter_factor * small);
+    beam.sections = {{d.stickout - tool.flute_length - d.neck_length, d.shank_diameter},
+                     {d.neck_length, d.neck_diameter},
                      {tool.flute_length, head}};
   }
   return beam;

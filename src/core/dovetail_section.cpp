@@ -59,6 +59,14 @@ DovetailSection section_of(const DovetailSpec& spec) {
   return s;
 }
 
+double band_middle(const Tolerance& tolerance) { return (tolerance.lower + tolerance.upper) / 2; }
+
+DovetailSpec aimed_spec(const DovetailSpec& spec) {
+  DovetailSpec aimed = spec;
+  aimed.width += band_middle(spec.tolerance);
+  return aimed;
+}
+
 double flank_x_at(const Flank& flank, double z) {
   const double t = (z - flank.base.z) / (flank.top.z - flank.base.z);
   return flank.base.x + t * (flank.top.x - flank.base.x);

@@ -107,11 +107,10 @@ std::vector<std::string> header_lines(const Plan& plan, const Post& post,
                               *t.gib_side == Side::Left ? "left" : "right",
                               s.len(t.gib_allowance)));
   if (job.gauge) {
-    const auto& tol = job.dovetail.tolerance;
-    out.push_back(fmt::format(
-        "final reading {} of {}: {}, good from {} to {}", method_words(plan.final_reading),
-        s.len(job.gauge->pin_diameter), s.len(plan.final_reading.value),
-        s.num(plan.final_reading.value + tol.lower), s.len(plan.final_reading.value + tol.upper)));
+    const ReadingBand band = final_reading_band(plan);
+    out.push_back(fmt::format("final reading {} of {}: {}, good from {} to {}",
+                              method_words(plan.final_reading), s.len(job.gauge->pin_diameter),
+                              s.len(plan.final_reading.value), s.num(band.low), s.len(band.high)));
   }
   out.push_back("tools:");
   for (const auto& op : plan.operations) {

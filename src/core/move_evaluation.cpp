@@ -43,6 +43,17 @@ double radial_engagement(const SectionRegion& removed, const Bounds2& b, double 
   return widest;
 }
 
+// How thick a cut the flutes take at their top: the removed material's width
+// in the row just below the top of the flutes, turned square to the cutting
+// edge there (times sin a for a dovetail cutter's cone; an end mill's side is
+// upright).
+double cut_at_flute_top(const SectionRegion& removed, double flute_top, const SimTool& tool) {
+  const double probe = flute_top - 2e-3;  // 2 um below the top: inside the chord profile
+  double width = 0;
+  for (const Span& s : removed.row(probe)) width += s.high - s.low;
+  return tool.dovetail ? width * std::sin(radians(tool.tool.angle)) : width;
+}
+
 }  // namespace
 
 Outcome evaluate_move(const Material& material, const StationTarget& target,
@@ -94,8 +105,15 @@ Outcome evaluate_move(const Material& material, const StationTarget& target,
                           tool.number, show(ae), show(tool.radial_limit))));
         }
       }
+      // Engaged at their top: a cut there thicker than the tolerance's
+      // allowance. A thinner layer is the finished surface as the checker
+      // judges it everywhere (neither gouge nor stock left): flutes meeting
+      // a surface the level above has finished, by the rounding of the
+      // program's positions at the joint of two levels, rub it; they do not
+      // cut a chip at their top.
       const double flute_top = facts.tip_z + tool.tool.flute_length;
-      if (rb.z_max >= flute_top - 1e-3 && !sweep.column.empty()) {
+      if (rb.z_max >= flute_top - 1e-3 && !sweep.column.empty() &&
+          cut_at_flute_top(removed, flute_top, tool) > target.allowance) {
         const SectionRegion buried = intersect(after->region, sweep.column);
         if (buried.area() > least_area) {
           const double above = buried.bounds()->z_max - flute_top;

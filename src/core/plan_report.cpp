@@ -85,10 +85,9 @@ std::string correction_rule(const Plan& plan, const Checkpoint& c) {
   const std::string each = n == 2 ? "each flank" : "the angled flank";
   const double unit = plan.job.units == Units::Inch ? to_mm(0.001, Units::Inch) : 0.01;
   const double per = std::abs(c.correction_per_reading) * unit;
-  const auto& tol = plan.job.dovetail.tolerance;
   if (c.remaining_per_flank <= 0) {
     // After finishing: in tolerance, under size (trim), or over size.
-    const double low = c.expected.value + tol.lower, high = c.expected.value + tol.upper;
+    const auto [low, high] = final_reading_band(plan);
     const double trim_from = female ? low : high;
     return fmt::format(
         "Good from {} to {}. A reading {} {} means stock is left: {} has {} to cut for every "
@@ -127,9 +126,8 @@ std::string format_plan(const Plan& plan) {
   if (job.gauge)
     out += wrap(fmt::format("Final reading {} of {}: {} (good from {} to {}).",
                             method_words(plan.final_reading), s.len(job.gauge->pin_diameter),
-                            s.len(plan.final_reading.value),
-                            s.num(plan.final_reading.value + job.dovetail.tolerance.lower),
-                            s.len(plan.final_reading.value + job.dovetail.tolerance.upper)),
+                            s.len(plan.final_reading.value), s.num(final_reading_band(plan).low),
+                            s.len(final_reading_band(plan).high)),
                 "", "");
   line("");
   out += safety_cautions();

@@ -6,6 +6,7 @@
 #include <dovetailor/deflection.hpp>
 #include <dovetailor/material_table.hpp>
 #include <dovetailor/planner.hpp>
+#include <dovetailor/tool_body.hpp>
 
 #include "planner_detail.hpp"
 
@@ -27,56 +28,51 @@ const Tool& pick_tool(const Job& job, ToolKind kind, std::optional<int> number, 
   return *tool;
 }
 
-// The dovetail cutter's radius at `h` above its tip: the cone over the
-// flutes, then the neck, the shank and the holder (tool_beam's body).
-double cutter_radius_at(const Tool& t, double h) {
-  if (h <= t.flute_length) return t.diameter / 2 - h * cot_deg(t.angle);
-  const ToolBeam beam = tool_beam(t);
-  const double neck = beam.sections.size() > 1 ? beam.sections[1].length : 0;
-  if (h <= t.flute_length + neck) return t.neck_diameter / 2;
-  if (h <= beam.length()) return beam.sections.front().diameter / 2;
-  return t.holder_diameter.value_or(beam.sections.front().diameter) / 2;
-}
-
 // Refuses a job whose cutter body would touch the finished part when it sits
 // at a finishing position: the large diameter cutting the opposite flank, the
-// neck or shank hitting the overhang or the top face.
+// neck, shank or holder hitting the overhang. The body is the checker's
+// (tool_body.hpp, the same defaults for what the job leaves out), so the
+// planner refuses exactly what the checker would find touching there. Each
+// part's profile is piecewise linear in height and so is the flank: testing
+// the profile's points, and where a part crosses the top plane, is exact.
 void check_cutter_fits(const PlanContext& ctx) {
   const auto& s = ctx.target;
   const Tool& t = ctx.cutter;
+  const ToolBody body = tool_body(t);
   const double depth = s.depth;
-  const double usable = 0.9 * t.flute_length;
-  const int levels = std::max(1, static_cast<int>(std::ceil(depth / usable - 1e-9)));
+  constexpr double slack = 1e-6;
   for (Side side : {Side::Left, Side::Right}) {
     if (!s.flank(side).angled) continue;
-    for (int j = 0; j < levels; ++j) {
-      const double tip = depth * j / levels;
+    for (const double tip : detail::level_tips(ctx)) {
       const double x = detail::cutter_axis_x(ctx, side, 0, tip);
-      // Sample the body from the tip to well above the top plane.
-      for (int k = 0; k <= 400; ++k) {
-        const double h = (depth - tip + ctx.safe_z) * k / 400.0;
-        const double z = -depth + tip + h;
-        if (z > 0) break;  // above the top plane the body is in the clear
-        const double r = cutter_radius_at(t, h);
-        const double lx = flank_x_at(s.left, z), rx = flank_x_at(s.right, z);
-        const double slack = 1e-6;
-        std::string part = h <= t.flute_length ? "the cutting cone" : "the neck or shank";
-        bool hit = false;
-        if (ctx.female()) {
-          hit = x - r < lx - slack || x + r > rx + slack;
-        } else {
-          hit = x + r > lx + slack && x - r < rx - slack;
-        }
-        if (hit)
+      const double below_top = depth - tip;  // the top plane, above the tip
+      for (const BodySection& section : body.sections) {
+        if (section.bottom() >= below_top) break;  // above the top plane all is clear
+        std::vector<ProfilePoint> points = section.profile;
+        if (section.top() > below_top) points.push_back({below_top, section.radius_at(below_top)});
+        for (const ProfilePoint& p : points) {
+          if (p.height > below_top) continue;
+          const double z = -depth + tip + p.height;
+          const double r = p.radius;
+          const double lx = flank_x_at(s.left, z), rx = flank_x_at(s.right, z);
+          const bool hit = ctx.female() ? x - r < lx - slack || x + r > rx + slack
+                                        : x + r > lx + slack && x - r < rx - slack;
+          if (!hit) continue;
+          const bool cone = section.part == BodyPart::Flutes;
           throw InputError(
               fmt::format("finishing the {} flank with T{}, {} at {} above the base plane would "
                           "cut into the {} (cutter radius there {}); {}",
-                          side == Side::Left ? "left" : "right", t.number, part, ctx.show(tip + h),
+                          side == Side::Left ? "left" : "right", t.number,
+                          cone ? std::string("the cutting cone")
+                               : fmt::format("the {}", body_part_name(section.part)),
+                          ctx.show(tip + p.height),
                           ctx.female() ? "opposite side of the groove" : "tongue", ctx.show(r),
-                          h <= t.flute_length
-                              ? "use a cutter with a smaller large diameter"
-                              : "use a cutter with a slimmer or longer neck, or longer flutes"),
+                          cone ? "use a cutter with a smaller large diameter"
+                               : "use a cutter with a slimmer or longer neck, or longer flutes, "
+                                 "or give its shank_diameter and stickout if they differ from "
+                                 "the assumed ones"),
               {ctx.job.source}, fmt::format("tool[T{}]", t.number));
+        }
       }
     }
   }
@@ -207,6 +203,12 @@ std::string_view pass_role_word(PassRole role) {
   return "";
 }
 
+ReadingBand final_reading_band(const Plan& plan) {
+  const Tolerance& tol = plan.job.dovetail.tolerance;
+  const double nominal = plan.final_reading.value - band_middle(tol);
+  return {nominal + tol.lower, nominal + tol.upper};
+}
+
 std::vector<const Pass*> all_passes(const Plan& plan) {
   std::vector<const Pass*> out;
   for (const auto& op : plan.operations)
@@ -248,7 +250,7 @@ Plan plan(const Job& given) {
                   .material = material,
                   .end_mill = end_mill,
                   .cutter = cutter,
-                  .target = section_of(job.dovetail),
+                  .target = section_of(aimed_spec(job.dovetail)),
                   .warnings = warnings};
   ctx.safe_z = by_units(u, 0.2, 5);
   ctx.near_z = by_units(u, 0.05, 1);
@@ -300,6 +302,12 @@ Plan plan(const Job& given) {
         ctx.show(ctx.target.width_top()), ctx.show(nominal.width_top()), given.dovetail.angle,
         cutter.angle));
   }
+  if (const double aim = band_middle(job.dovetail.tolerance); aim != 0)
+    result.notes.push_back(fmt::format(
+        "Aimed at the middle of the width tolerance: {} at the base plane, {} {} the nominal {}, "
+        "so that rounding the program's last decimal keeps the part inside the band.",
+        ctx.show(ctx.target.width_bottom()), ctx.show(std::abs(aim)), aim > 0 ? "over" : "under",
+        ctx.show(section_of(job.dovetail).width_bottom())));
   result.operations = detail::rough_operations(ctx);
   result.operations.push_back(detail::undercut_operation(ctx));
   const Operation& undercut = result.operations.back();

@@ -78,6 +78,15 @@ Operation undercut_operation(PlanContext& ctx);
 // `stock` left, the tip at `tip_above_base` above the base plane, at y = 0.
 double cutter_axis_x(const PlanContext& ctx, Side side, double stock, double tip_above_base);
 
+// The dovetail cutter's tip heights above the base plane, top level first:
+// one level (0) when its flutes cover the depth with a tenth to spare, else
+// levels spaced so each overlaps the next by at least a tenth of the flutes,
+// cut from the top down so the neck always runs in space the level above has
+// cleared. Each height is a whole multiple of 0.001 in / 0.01 mm above the
+// base plane, so that a control rounding the tip's Z word rounds every level
+// alike: the levels then meet on one flank line, up to the rounding of X.
+std::vector<double> level_tips(const PlanContext& ctx);
+
 // dx/dy of a flank in plan view: non-zero only for a tapered gib flank.
 double flank_taper_slope(const PlanContext& ctx, Side side);
 

@@ -103,7 +103,7 @@ SheetTable correction_table(const Plan& plan, const Checkpoint& c, const Handwhe
                             const Show& s) {
   const Units u = plan.job.units;
   const double step = u == Units::Inch ? to_mm(0.001, Units::Inch) : 0.02;
-  const auto& tol = plan.job.dovetail.tolerance;
+  const ReadingBand band = final_reading_band(plan);
   const bool female = plan.target.type == DovetailType::Female;
   const bool final_stop = c.remaining_per_flank <= 0;
   SheetTable t;
@@ -119,7 +119,7 @@ SheetTable correction_table(const Plan& plan, const Checkpoint& c, const Handwhe
     std::string then;
     long divisions = 0;
     // A reading inside the width tolerance (reading and width move together).
-    const bool in_band = error >= tol.lower - 1e-9 && error <= tol.upper + 1e-9;
+    const bool in_band = reading >= band.low - 1e-9 && reading <= band.high + 1e-9;
     if (final_stop) {
       if (in_band) {
         then = "on size: done";
@@ -203,12 +203,10 @@ std::vector<SheetFact> title_facts(const Plan& plan, const SheetOptions& o, cons
   f.push_back({"Widths", fmt::format("{} at the base plane, {} at the top plane",
                                      s.len(t.width_bottom()), s.len(t.width_top()))});
   if (job.gauge) {
-    const auto& tol = job.dovetail.tolerance;
-    f.push_back(
-        {"Final reading",
-         fmt::format("{} {} (good from {} to {})", s.len(plan.final_reading.value),
-                     method_words(plan.final_reading), s.num(plan.final_reading.value + tol.lower),
-                     s.len(plan.final_reading.value + tol.upper))});
+    const ReadingBand band = final_reading_band(plan);
+    f.push_back({"Final reading",
+                 fmt::format("{} {} (good from {} to {})", s.len(plan.final_reading.value),
+                             method_words(plan.final_reading), s.num(band.low), s.len(band.high))});
     f.push_back(
         {"Pins",
          fmt::format("{} x {} dia{}", plan.final_reading.pins, s.len(job.gauge->pin_diameter),

@@ -85,9 +85,11 @@ void measure_stations(const Job& job, const StationSimulator& sim, FindingSink& 
     r.target_width_bottom = target.section.width_bottom();
     r.target_width_top = target.section.width_top();
     r.target_reading = reading_of(target.section, pin);
+    // The target is the middle of the band; the band lies on the nominal.
     const double want = r.target_reading.value;
+    const double nominal = want - band_middle(tol);
     if (r.measured.reading) {
-      const double error = r.measured.reading->value - want;
+      const double error = r.measured.reading->value - nominal;
       r.reading_in_tolerance =
           error >= tol.lower - reading_slack && error <= tol.upper + reading_slack;
     }
@@ -95,7 +97,7 @@ void measure_stations(const Job& job, const StationSimulator& sim, FindingSink& 
       const std::string what =
           r.measured.reading
               ? fmt::format("reads {} against {} ({} to {})", show(r.measured.reading->value),
-                            show(want), show(want + tol.lower), show(want + tol.upper))
+                            show(want), show(nominal + tol.lower), show(nominal + tol.upper))
               : fmt::format(
                     "cannot be read with {} pins: {}", show(pin),
                     r.measured.problems.empty() ? "no flank found" : r.measured.problems.front());

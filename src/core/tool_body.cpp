@@ -86,8 +86,29 @@ BodySection cylinder(BodyPart part, double bottom, double top, double radius) {
 
 }  // namespace
 
+BodyDimensions body_dimensions(const Tool& tool) {
+  assert(tool.diameter > 0 && tool.flute_length > 0);
+  BodyDimensions d;
+  d.shank_assumed = !tool.shank_diameter;
+  d.stickout_assumed = !tool.stickout;
+  d.holder_diameter = tool.holder_diameter;
+  if (tool.kind != ToolKind::Dovetail) {
+    d.shank_diameter = tool.shank_diameter.value_or(tool.diameter);
+    d.stickout = tool.stickout.value_or(tool.flute_length + 0.5 * d.shank_diameter);
+    return d;
+  }
+  const double small = tool.diameter - 2 * tool.flute_length / std::tan(radians(tool.angle));
+  d.neck_diameter = tool.neck_diameter > 0 ? tool.neck_diameter : small;
+  d.shank_diameter = tool.shank_diameter.value_or(std::max(d.neck_diameter, 0.5 * tool.diameter));
+  d.neck_length = neck_length_factor * tool.diameter;
+  d.stickout = tool.stickout.value_or(tool.flute_length + d.neck_length + d.shank_diameter);
+  d.neck_length = std::max(0.0, std::min(d.neck_length, d.stickout - tool.flute_length));
+  return d;
+}
+
 ToolBody tool_body(const Tool& tool, const ToolBodyOptions& options) {
   assert(tool.diameter > 0 && tool.flute_length > 0);
+  const BodyDimensions dims = body_dimensions(tool);
   const double big = tool.diameter / 2;
   const double flutes_top = tool.flute_length;
   ToolBody body;
@@ -119,22 +140,20 @@ ToolBody tool_body(const Tool& tool, const ToolBodyOptions& options) {
     auto profile = tip_profile(big, tool.angle, tool.corner_radius, options.chord_tolerance);
     profile.push_back({flutes_top, small});
     body.sections.push_back({BodyPart::Flutes, std::move(profile)});
-    const double neck = tool.neck_diameter > 0 ? tool.neck_diameter / 2 : small;
-    const double neck_length = options.neck_length > 0 ? options.neck_length : tool.flute_length;
-    shank_bottom = flutes_top + neck_length;
-    if (tool.stickout) shank_bottom = std::min(shank_bottom, *tool.stickout);
+    shank_bottom = flutes_top + dims.neck_length;
     if (shank_bottom > flutes_top)
-      body.sections.push_back(cylinder(BodyPart::Neck, flutes_top, shank_bottom, neck));
+      body.sections.push_back(
+          cylinder(BodyPart::Neck, flutes_top, shank_bottom, dims.neck_diameter / 2));
   }
 
-  const bool holder = tool.holder_diameter && tool.stickout;
-  const double shank_top = holder ? std::max(*tool.stickout, shank_bottom) : options.body_top;
-  const double shank = tool.shank_diameter ? *tool.shank_diameter / 2 : big;
+  const bool holder = dims.holder_diameter.has_value();
+  const double shank_top = holder ? std::max(dims.stickout, shank_bottom) : options.body_top;
   if (shank_top > shank_bottom)
-    body.sections.push_back(cylinder(BodyPart::Shank, shank_bottom, shank_top, shank));
+    body.sections.push_back(
+        cylinder(BodyPart::Shank, shank_bottom, shank_top, dims.shank_diameter / 2));
   if (holder && options.body_top > shank_top)
     body.sections.push_back(
-        cylinder(BodyPart::Holder, shank_top, options.body_top, *tool.holder_diameter / 2));
+        cylinder(BodyPart::Holder, shank_top, options.body_top, *dims.holder_diameter / 2));
   return body;
 }
 

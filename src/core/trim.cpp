@@ -135,8 +135,11 @@ Trim trim(const Plan& plan, const TrimRequest& request) {
       t.flanks.push_back({.side = side, .planned = c.remaining_per_flank, .now = stock});
   // Stock left narrows a female and widens a male, by n * stock.
   t.width_error = (female ? -1.0 : 1.0) * n * stock;
-  const bool past = female ? t.width_error > tol.upper + tiny : t.width_error < tol.lower - tiny;
-  const bool within = t.width_error >= tol.lower - tiny && t.width_error <= tol.upper + tiny;
+  // The final width is the middle of the band: against the nominal the part
+  // is off by the width error plus that.
+  const double off_nominal = t.width_error + band_middle(tol);
+  const bool past = female ? off_nominal > tol.upper + tiny : off_nominal < tol.lower - tiny;
+  const bool within = off_nominal >= tol.lower - tiny && off_nominal <= tol.upper + tiny;
   t.verdict = past ? TrimVerdict::OverCut : (within ? TrimVerdict::OnSize : TrimVerdict::Trim);
 
   if (request.depth) {

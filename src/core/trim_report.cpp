@@ -64,21 +64,23 @@ std::string format_trim(const Plan& plan, const Trim& t, SizingStyle style) {
                        signed_len(s, f.now), s.len(f.planned), signed_len(s, f.error()));
   out += "\n";
   const double per_flank = t.flanks.empty() ? 0 : t.flanks.front().now;
+  const double off_nominal = t.width_error + band_middle(tol);
   switch (t.verdict) {
     case TrimVerdict::OverCut:
       out += wrapped(fmt::format(
           "STOP: do not cut on. The flanks are cut past size: the part is already {} {} size "
-          "at the base plane ({} on {}), outside the tolerance {} to {}. A trim "
-          "cannot put metal back; decide with the mating part (for instance a thicker gib).",
-          s.len(std::abs(t.width_error)), female ? "over" : "under", s.len(std::abs(per_flank)),
-          t.flanks.size() == 2 ? "each angled flank" : "the angled flank", signed_len(s, tol.lower),
-          signed_len(s, tol.upper)));
+          "at the base plane (from the nominal), outside the tolerance {} to {}; {} past the "
+          "final size on {}. A trim cannot put metal back; decide with the mating part (for "
+          "instance a thicker gib).",
+          s.len(std::abs(off_nominal)), female ? "over" : "under", signed_len(s, tol.lower),
+          signed_len(s, tol.upper), s.len(std::abs(per_flank)),
+          t.flanks.size() == 2 ? "each angled flank" : "the angled flank"));
       break;
     case TrimVerdict::OnSize:
       out += wrapped(fmt::format(
-          "On size: the width is {} from the final, within the tolerance {} to {}. Nothing to "
+          "On size: the width is {} from the nominal, within the tolerance {} to {}. Nothing to "
           "cut; do not take the remaining passes.",
-          signed_len(s, t.width_error), signed_len(s, tol.lower), signed_len(s, tol.upper)));
+          signed_len(s, off_nominal), signed_len(s, tol.lower), signed_len(s, tol.upper)));
       break;
     case TrimVerdict::Trim: {
       out += wrapped(fmt::format("Safe to continue: {} of stock is left on {}.", s.len(per_flank),
@@ -93,10 +95,9 @@ std::string format_trim(const Plan& plan, const Trim& t, SizingStyle style) {
                            s.num(p.radial_step), s.num(p.stock_left));
       out += wrapped("X is the tool axis at the front end (* runs at the gib's taper), Z the tip.",
                      "  ");
-      out += wrapped(fmt::format("Expect after the trim: {} (good from {} to {}).",
-                                 s.len(plan.final_reading.value),
-                                 s.num(plan.final_reading.value + tol.lower),
-                                 s.len(plan.final_reading.value + tol.upper)));
+      out += wrapped(fmt::format(
+          "Expect after the trim: {} (good from {} to {}).", s.len(plan.final_reading.value),
+          s.num(final_reading_band(plan).low), s.len(final_reading_band(plan).high)));
       break;
     }
   }

@@ -25,6 +25,18 @@ double cutter_axis_x(const PlanContext& ctx, Side side, double stock, double tip
   return f.base.x + inward * from_corner;
 }
 
+std::vector<double> level_tips(const PlanContext& ctx) {
+  const double depth = ctx.target.depth;
+  const double usable = 0.9 * ctx.cutter.flute_length;
+  const int n = std::max(1, static_cast<int>(std::ceil(depth / usable - 1e-9)));
+  // 0.001 in or 0.01 mm: a whole number of steps of any control that writes
+  // at least 3 decimals in inch or 2 in mm.
+  const double round = ctx.units() == Units::Inch ? to_mm(0.001, Units::Inch) : 0.01;
+  std::vector<double> tips;
+  for (int j = n - 1; j >= 0; --j) tips.push_back(std::round(depth * j / n / round) * round);
+  return tips;
+}
+
 namespace {
 
 struct Levels {
@@ -32,17 +44,8 @@ struct Levels {
   double engaged = 0;        // engaged flank height per level
 };
 
-// The undercut is cut in levels along the flank when the flutes are shorter
-// than the depth: tips spaced so each level overlaps the next, from the top
-// level down, so the neck always runs in space the level above has cleared.
 Levels levels_for(const PlanContext& ctx) {
-  const double depth = ctx.target.depth;
-  const double usable = 0.9 * ctx.cutter.flute_length;
-  const int n = std::max(1, static_cast<int>(std::ceil(depth / usable - 1e-9)));
-  Levels l;
-  for (int j = n - 1; j >= 0; --j) l.tips.push_back(depth * j / n);
-  l.engaged = std::min(depth, ctx.cutter.flute_length);
-  return l;
+  return {level_tips(ctx), std::min(ctx.target.depth, ctx.cutter.flute_length)};
 }
 
 // Lateral distance from the centre of the roughed space to the flank's
