@@ -169,6 +169,13 @@ Operation undercut_operation(PlanContext& ctx) {
     for (Side side : {Side::Right, Side::Left}) {
       const bool angled_side = s.flank(side).angled;
       const double sign = side == Side::Right ? 1.0 : -1.0;
+      // The passes toward a tapered gib's flank run at the taper, the
+      // roughing beside them straight: along the slide they close on the
+      // roughed wall by up to the taper over the dovetail's length, and
+      // start that much further from it, so no pass takes more than a step.
+      const double toward_wall = ctx.female() ? sign : -sign;
+      const double closing =
+          std::max(0.0, toward_wall * flank_taper_slope(ctx, side) * ctx.job.dovetail.length);
       double from_x = start_x;
       double stock_from = 0;
       double end_stock = ctx.finish_allowance;
@@ -190,7 +197,7 @@ Operation undercut_operation(PlanContext& ctx) {
       } else {
         if (!angled_side) continue;  // the end mill finished the square wall and its shelf
         const double wall = s.flank(side).top.x + sign * ctx.rough_allowance;
-        from_x = wall + sign * radius;
+        from_x = wall + sign * (radius + closing);
         stock_from = stock_at_axis(ctx, side, from_x, tip);
       }
       if (stock_from <= end_stock + 1e-9) continue;
@@ -201,7 +208,8 @@ Operation undercut_operation(PlanContext& ctx) {
       if (ctx.female()) {
         const double wall =
             sign > 0 ? s.right.top.x - ctx.rough_allowance : s.left.top.x + ctx.rough_allowance;
-        engage_stock = std::min(stock_from, stock_at_axis(ctx, side, wall - sign * radius, tip));
+        engage_stock =
+            std::min(stock_from, stock_at_axis(ctx, side, wall - sign * (radius + closing), tip));
       }
       engage_stock = std::max(engage_stock, end_stock);
       double stock = stock_from;
