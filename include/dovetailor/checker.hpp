@@ -43,13 +43,20 @@ namespace dovetailor {
 // machine.max_rpm.
 //
 // Tolerances: a gouge is material removed from the finished part deeper than
-// half the width tolerance band (at least 1 um); stock left is material
-// outside the finished part thicker than the same. The reading at each
-// station must lie in the width tolerance band around the target reading.
-// The radial-engagement limit of a dovetail cutter is the largest radial step
+// half the width tolerance band (at least 1 um); its depth is the largest
+// distance of the material cut from the finished part's outline. Stock left
+// is material outside the finished part thicker than the same. The reading
+// at each station must lie in the width tolerance band around the target
+// reading.
+// A dovetail cutter is overloaded (an error) when, above the floor skin its
+// bottom face may take (the female's floor allowance, as the planner leaves
+// it), a move removes material on its axis (it slots, engaged across its
+// diameter) or a lateral cut on one side wider than the largest radial step
 // the planner takes with it for this job (plan.hpp), or a tenth of its
 // diameter when the job cannot be planned (the planner's cap, common
-// practice); end mills are not limited (they slot at full width by design).
+// practice); each limit plus 2 % and 5 um for a program's rounding. It is
+// measured for moves along Y and straight moves within 45 deg of Y. End
+// mills are not limited (they slot at full width by design).
 //
 // The safe height is the planner's (plan.hpp: 0.2 in / 5 mm above the top
 // face); the simulated tool starts above work zero at that height.

@@ -54,7 +54,11 @@ struct SimTool {
   ToolBody body;
   ToolBody column;
   bool dovetail = false;
-  double radial_limit = 0;  // mm; 0: not checked
+  // A dovetail cutter's limits (checker.hpp): the largest radial step the
+  // planner takes with it, and the thickest floor skin its bottom face takes
+  // (the female's floor allowance), mm; radial_limit 0: not checked.
+  double radial_limit = 0;
+  double floor_skin = 0;
   struct Silhouette {
     BodyPart part = BodyPart::Flutes;
     std::vector<GridPoint> ring;
@@ -63,7 +67,7 @@ struct SimTool {
   std::vector<GridPoint> column_silhouette;
 };
 
-SimTool make_sim_tool(const Tool& tool, int index, double radial_limit);
+SimTool make_sim_tool(const Tool& tool, int index, double radial_limit, double floor_skin);
 
 // Station-independent facts about one move.
 struct MoveFacts {
@@ -71,9 +75,14 @@ struct MoveFacts {
   MotionKind kind = MotionKind::Feed;
   bool spindle_on = false;
   bool plunging = false;  // the tip moves down
-  bool along_y = false;   // only y changes: radial engagement is measured
-  double axis_x = 0;      // tool axis, for along-Y moves
-  double tip_z = 0;       // the highest tip height of the move near the station
+  // The engagement of a dovetail cutter is measured for moves along Y and
+  // for straight moves within 45 deg of Y where they cross a station: the
+  // tool axis and the tip there, and the move's dx/dy.
+  bool along_y = false;
+  double axis_x = 0;
+  double axis_z = 0;
+  double axis_slope = 0;
+  double tip_z = 0;  // the highest tip height of the move near the station
 };
 
 // The area one move sweeps in one station plane, by purpose.
