@@ -478,6 +478,37 @@ TEST(checker, a_gouge_by_a_split_slanted_pass_names_the_move_at_each_station) {
   EXPECT_EQ(lines, (std::vector<int>{7, 9, 10, 12, 14})) << describe(r);
 }
 
+// Issue 12, item 14: a program saved with a UTF-8 byte-order mark and CRLF
+// line ends (or old Mac CR ends, or a lone CR at the end) is the same
+// program: the same findings at the same lines, the same readings.
+std::string with_line_ends(const std::string& text, const std::string& end, bool bom) {
+  std::string out = bom ? "\xEF\xBB\xBF" : "";
+  for (char ch : text) out += ch == '\n' ? end : std::string(1, ch);
+  return out;
+}
+
+TEST(checker, a_byte_order_mark_and_crlf_line_ends_check_the_same_program) {
+  const Job job = sample("stop-block-male.toml");
+  const std::string clean = read_source_file("tests/programs/stop-block-male.ngc");
+  const std::string gouge = read_source_file("tests/programs/gouge-male.ngc");
+  for (const std::string* program : {&clean, &gouge}) {
+    const CheckReport lf = check_text(*program, job);
+    for (const auto& [end, bom] : std::vector<std::pair<std::string, bool>>{
+             {"\r\n", false}, {"\r\n", true}, {"\n", true}, {"\r", true}}) {
+      SCOPED_TRACE(::testing::PrintToString(end) + (bom ? " with BOM" : ""));
+      const CheckReport other = check_text(with_line_ends(*program, end, bom), job);
+      EXPECT_EQ(other, lf) << describe(other);
+    }
+  }
+  // The gouge stays at line 8 of gouge-male.ngc, behind the BOM too.
+  const CheckReport r = check_text(with_line_ends(gouge, "\r\n", true), job);
+  ASSERT_NE(first_of(r, FindingKind::Gouge), nullptr);
+  EXPECT_EQ(first_of(r, FindingKind::Gouge)->line, 8);
+  // A reader error on the first line counts its columns after the BOM.
+  StringProgramSource source("\xEF\xBB\xBFG21 Q1\r\n", "bom.ngc");
+  testing::expect_input_error([&] { check(source, job); }, {"bom.ngc:1:5"});
+}
+
 TEST(checker, reader_errors_name_the_program_and_line) {
   const Job job = sample("stop-block-male.toml");
   StringProgramSource source("G21\nG1 X1 Q\n", "broken.ngc");
