@@ -319,6 +319,24 @@ TEST(checker, a_dovetail_cutter_slotting_full_width_through_stock_is_an_error_at
   EXPECT_EQ(r.count(FindingKind::BodyCollision), 0) << describe(r);
 }
 
+TEST(checker, a_dovetail_cutters_neck_in_material_is_an_error_at_its_line) {
+  // T4's flutes are 7 mm long: with its tip 8 mm down in the uncut right
+  // shoulder its neck (9 mm across) runs through the top 1 mm of stock.
+  // That is a body_collision (coverage: it was found before issue 12 too),
+  // besides the slotting.
+  const std::string text =
+      "G21 G90 G17\nT4 M6\nS800 M3\nG0 X32 Y-20 Z5\nG1 Z-8 F100\n"
+      "G1 Y180\nG0 Z5\nM30\n";
+  const CheckReport r = check_text(text, sharp_cutter_job());
+  const Finding* neck = first_of(r, FindingKind::BodyCollision);
+  ASSERT_NE(neck, nullptr) << describe(r);
+  EXPECT_EQ(neck->line, 6);
+  EXPECT_EQ(neck->severity, Severity::Error);
+  EXPECT_NE(neck->text.find("the neck of T4"), std::string::npos) << neck->text;
+  ASSERT_NE(first_of(r, FindingKind::CutterOverload), nullptr) << describe(r);
+  EXPECT_EQ(first_of(r, FindingKind::CutterOverload)->line, 6);
+}
+
 // Issue 12, item 10: a gouge reports the largest distance of the material
 // cut from the finished part, measured from the part's outline.
 TEST(checker, a_gouge_reports_its_true_largest_depth_into_the_part) {
