@@ -302,9 +302,11 @@ TEST(checker, a_dovetail_pass_three_times_the_planned_step_is_an_error_at_its_li
 TEST(checker, a_dovetail_cutter_slotting_full_width_through_stock_is_an_error_at_its_line) {
   // T4 runs 3 mm deep through the uncut right shoulder, axis at x = 30:
   // solid stock on both sides of its axis, from the tip at z = -3 to the
-  // top face, less the 0.005 mm the rows start above the tip: 2.995 mm on
-  // the axis. The widest row, just above the tip, is the cone's whole
-  // chord there, 2 (12.5 - h): 24.99 mm at h = 0.005.
+  // top face. The skin its bottom face may take across its diameter is the
+  // planner's default floor allowance, 0.12 mm, plus 2 % and 5 um: 2.8726
+  // mm of material on the axis above that. The widest row, 5 um above the
+  // tip (the male's own floor skin is none), is the cone's whole chord
+  // there, 2 (12.5 - h): 24.99 mm.
   const std::string text =
       "G21 G90 G17\nT4 M6\nS800 M3\nG0 X30 Y-20 Z5\nG1 Z-3 F100\n"
       "G1 Y180\nG0 Z5\nM30\n";
@@ -314,9 +316,23 @@ TEST(checker, a_dovetail_cutter_slotting_full_width_through_stock_is_an_error_at
   EXPECT_EQ(f->line, 6);
   EXPECT_EQ(f->severity, Severity::Error);
   EXPECT_NEAR(f->amount, 24.99, 1e-3);
-  EXPECT_NE(f->text.find("2.995 mm of material on its axis"), std::string::npos) << f->text;
+  EXPECT_NE(f->text.find("2.873 mm of material on its axis"), std::string::npos) << f->text;
   EXPECT_EQ(r.count(FindingKind::Plunge), 0) << describe(r);
   EXPECT_EQ(r.count(FindingKind::BodyCollision), 0) << describe(r);
+}
+
+TEST(checker, a_thin_skin_under_the_dovetail_cutter_is_no_overload) {
+  // The end mill leaves 0.02 mm on the rail's shelf (z = -5.98 from x =
+  // 20.25 out); the planner's first dovetail pass (axis 31.2375, its step
+  // 1.5125 mm) takes that skin across its whole diameter besides its step:
+  // thinner than the default floor allowance, no slot, and the step is
+  // the planned one.
+  std::string text = "G21 G90 G17\nT3 M6\nS2500 M3\n";
+  for (const double x : {26.25, 32.25, 38.25, 44.25})
+    text += fmt::format("G0 X{} Y-20 Z5\nG1 Z-5.98 F500\nG1 Y180\nG0 Z5\n", x);
+  text += "T4 M6\nS800 M3\nG0 X31.2375 Y-20 Z5\nG1 Z-6 F100\nG1 Y180\nG0 Z5\nM30\n";
+  const CheckReport r = check_text(text, sharp_cutter_job());
+  EXPECT_EQ(r.count(FindingKind::CutterOverload), 0) << describe(r);
 }
 
 TEST(checker, a_dovetail_cutters_neck_in_material_is_an_error_at_its_line) {

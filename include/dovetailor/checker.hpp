@@ -48,15 +48,17 @@ namespace dovetailor {
 // is material outside the finished part thicker than the same. The reading
 // at each station must lie in the width tolerance band around the target
 // reading.
-// A dovetail cutter is overloaded (an error) when, above the floor skin its
-// bottom face may take (the female's floor allowance, as the planner leaves
-// it), a move removes material on its axis (it slots, engaged across its
-// diameter) or a lateral cut on one side wider than the largest radial step
-// the planner takes with it for this job (plan.hpp), or a tenth of its
-// diameter when the job cannot be planned (the planner's cap, common
-// practice); each limit plus 2 % and 5 um for a program's rounding. It is
-// measured for moves along Y and straight moves within 45 deg of Y. End
-// mills are not limited (they slot at full width by design).
+// A dovetail cutter is overloaded (an error) when a move removes material
+// on its axis above the skin its bottom face may take across its diameter
+// (a female's floor allowance, at least the planner's default: it slots,
+// engaged across its diameter), or, above the floor skin the planner's own
+// passes take (a female's floor allowance), a lateral cut on one side wider
+// than the largest radial step the planner takes with it for this job
+// (plan.hpp), or a tenth of its diameter when the job cannot be planned (the
+// planner's cap, common practice); each limit plus 2 % and 5 um for a
+// program's rounding. It is measured for moves along Y and straight moves
+// within 45 deg of Y. End mills are not limited (they slot at full width by
+// design).
 //
 // The safe height is the planner's (plan.hpp: 0.2 in / 5 mm above the top
 // face); the simulated tool starts above work zero at that height.

@@ -43,6 +43,18 @@ class FindingSink {
   std::vector<int> last_line_ = std::vector<int>(16, -1);
 };
 
+// What a dovetail cutter may take (checker.hpp), mm: the largest radial
+// step the planner takes with it; the floor skin its bottom face takes in
+// the planner's passes (a female's floor allowance; the radial engagement
+// is read above it); and the skin it may take across its whole diameter
+// (at least the planner's default floor allowance: a male's shelf cleaned
+// up by the cutter is no slot).
+struct CutterLimits {
+  double radial_step = 0;
+  double floor_skin = 0;
+  double skin_across = 0;
+};
+
 // A tool ready to sweep: its body, and the "column" above its flutes (a
 // cylinder of the flutes' top radius from their top upward) used to tell
 // buried flutes. Silhouettes (chord profiles at d = 0) are kept on the grid
@@ -54,11 +66,7 @@ struct SimTool {
   ToolBody body;
   ToolBody column;
   bool dovetail = false;
-  // A dovetail cutter's limits (checker.hpp): the largest radial step the
-  // planner takes with it, and the thickest floor skin its bottom face takes
-  // (the female's floor allowance), mm; radial_limit 0: not checked.
-  double radial_limit = 0;
-  double floor_skin = 0;
+  CutterLimits limits;  // dovetail cutters only; radial_step 0: not checked
   struct Silhouette {
     BodyPart part = BodyPart::Flutes;
     std::vector<GridPoint> ring;
@@ -67,7 +75,7 @@ struct SimTool {
   std::vector<GridPoint> column_silhouette;
 };
 
-SimTool make_sim_tool(const Tool& tool, int index, double radial_limit, double floor_skin);
+SimTool make_sim_tool(const Tool& tool, int index, const CutterLimits& limits);
 
 // Station-independent facts about one move.
 struct MoveFacts {

@@ -41,11 +41,14 @@ struct PlannerRules {
   std::vector<std::pair<int, double>> radial_limits;
 };
 
+// The planner's default floor allowance (planner.cpp).
+double default_floor_skin(Units units) { return by_units(units, 0.005, 0.12); }
+
 PlannerRules planner_rules(const Job& job) {
   PlannerRules rules;
   rules.safe_z = by_units(job.units, 0.2, 5);
   if (job.dovetail.type == DovetailType::Female)
-    rules.floor_skin = job.strategy.floor_allowance.value_or(by_units(job.units, 0.005, 0.12));
+    rules.floor_skin = job.strategy.floor_allowance.value_or(default_floor_skin(job.units));
   for (const Tool& t : job.tools)
     if (t.kind == ToolKind::Dovetail) rules.radial_limits.emplace_back(t.number, 0.1 * t.diameter);
   try {
@@ -212,11 +215,12 @@ void Checker::motion(const Event& event, const Motion& m, StationSimulator& sim)
 CheckReport Checker::run(ProgramSource& program) {
   rules_ = planner_rules(job_);
   for (const Tool& t : job_.tools) {
-    double limit = 0;
+    detail::CutterLimits limits{
+        .floor_skin = rules_.floor_skin,
+        .skin_across = std::max(rules_.floor_skin, default_floor_skin(job_.units))};
     for (const auto& [number, l] : rules_.radial_limits)
-      if (number == t.number) limit = l;
-    tools_.push_back(
-        detail::make_sim_tool(t, static_cast<int>(tools_.size()), limit, rules_.floor_skin));
+      if (number == t.number) limits.radial_step = l;
+    tools_.push_back(detail::make_sim_tool(t, static_cast<int>(tools_.size()), limits));
   }
   const std::vector<double> ys = station_positions(job_, options_.stations);
   const Tolerance& tol = job_.dovetail.tolerance;

@@ -25,22 +25,23 @@ Finding finding(FindingKind kind, Severity severity, double amount, double limit
 // limit allows for, far from what breaks a cutter.
 double beyond(double limit) { return limit * 1.02 + 0.005; }
 
-// How a dovetail cutter's flutes meet what one move removes, read in the
-// section above the floor skin its bottom face may take (from `low` up to
-// `high`): whether material is removed on the tool axis there (the cutter
-// is engaged across its whole diameter: slotting), and the widest cut on
-// either side of the axis (radial engagement). The width of a polygon on
-// one side of a vertical line is piecewise linear in height between its
-// vertices and the heights where its edges cross the line, so the rows
-// there (and a hair either side, for horizontal edges) hold the widest.
+// How a dovetail cutter's flutes meet what one move removes, in the
+// section up to `high`: how much material it removes on its axis above
+// `across_from` (it is engaged across its whole diameter there: it slots),
+// and the widest cut on either side of the axis in the rows above `low`
+// (its radial engagement; rows that run across the axis are a skin under
+// it, or the slot just measured). The width of a polygon on one side of a
+// vertical line is piecewise linear in height between its vertices and
+// the heights where its edges cross the line, so the rows there (and a
+// hair either side, for horizontal edges) hold the widest.
 struct Engagement {
-  double across = 0;  // height of material removed on the axis above `low`
+  double across = 0;  // height of material removed on the axis above `across_from`
   double widest = 0;  // widest lateral cut on one side of the axis
   double width = 0;   // widest row of the cut, both sides together
 };
 
 Engagement engagement(const SectionRegion& removed, const Bounds2& b, double axis, double low,
-                      double high) {
+                      double across_from, double high) {
   Engagement e;
   low = std::max(low, b.z_min);
   high = std::min(high, b.z_max);
@@ -50,7 +51,7 @@ Engagement engagement(const SectionRegion& removed, const Bounds2& b, double axi
     if (z > low && z < high) heights.push_back(z);
   };
   for (const Span& s : removed.column(axis)) {
-    e.across += std::max(0.0, std::min(s.high, high) - std::max(s.low, low));
+    e.across += std::max(0.0, std::min(s.high, high) - std::max(s.low, across_from));
     within(s.low);
     within(s.high);
   }
@@ -63,12 +64,14 @@ Engagement engagement(const SectionRegion& removed, const Bounds2& b, double axi
     for (const double z : {h - hair, h, h + hair}) {
       if (z < low || z > high) continue;
       double left = 0, right = 0;
+      bool across = false;
       for (const Span& s : removed.row(z)) {
+        across = across || (s.low < axis && s.high > axis);
         left += std::max(0.0, std::min(s.high, axis) - s.low);
         right += std::max(0.0, s.high - std::max(s.low, axis));
       }
-      e.widest = std::max({e.widest, left, right});
       e.width = std::max(e.width, left + right);
+      if (!across) e.widest = std::max({e.widest, left, right});
     }
   }
   return e;
@@ -143,28 +146,30 @@ Outcome evaluate_move(const Material& material, const StationTarget& target,
                                 "has no end-cutting centre and breaks",
                                 tool.number, show(deep))));
       }
-      if (tool.radial_limit > 0 && facts.along_y && facts.kind != MotionKind::Rapid) {
+      const CutterLimits& limits = tool.limits;
+      if (limits.radial_step > 0 && facts.along_y && facts.kind != MotionKind::Rapid) {
         // Read across the move: a slanted pass's section is sqrt(1 + s^2)
         // wider than the cut square to its path.
         const double across_path = 1 / std::hypot(1.0, facts.axis_slope);
-        const double fl = tool.tool.flute_length;
-        const Engagement e = engagement(removed, rb, facts.axis_x,
-                                        facts.axis_z + beyond(tool.floor_skin), facts.axis_z + fl);
+        const double tip = facts.axis_z;
+        const Engagement e =
+            engagement(removed, rb, facts.axis_x, tip + beyond(limits.floor_skin),
+                       tip + beyond(limits.skin_across), tip + tool.tool.flute_length);
         const double ae = e.widest * across_path;
-        if (e.across > beyond(0)) {
+        if (e.across > 1e-4) {
           const double width = e.width * across_path;
           out.findings.push_back(finding(
-              FindingKind::CutterOverload, Severity::Error, width, tool.radial_limit,
+              FindingKind::CutterOverload, Severity::Error, width, limits.radial_step,
               fmt::format("dovetail cutter T{} slots through material, engaged across its "
                           "diameter: a cut {} wide with {} of material on its axis, where the "
                           "planner steps it {} at a time from one side; it breaks",
-                          tool.number, show(width), show(e.across), show(tool.radial_limit))));
-        } else if (ae > beyond(tool.radial_limit)) {
+                          tool.number, show(width), show(e.across), show(limits.radial_step))));
+        } else if (ae > beyond(limits.radial_step)) {
           out.findings.push_back(finding(
-              FindingKind::CutterOverload, Severity::Error, ae, tool.radial_limit,
+              FindingKind::CutterOverload, Severity::Error, ae, limits.radial_step,
               fmt::format("dovetail cutter T{} takes a radial cut of {}; the largest step the "
                           "planner takes with it is {}",
-                          tool.number, show(ae), show(tool.radial_limit))));
+                          tool.number, show(ae), show(limits.radial_step))));
         }
       }
       const double flute_top = facts.tip_z + tool.tool.flute_length;
