@@ -2,6 +2,7 @@
 // and its virtual pin reading equals the planned final reading; hand-made bad
 // programs, one per finding kind, are each found at the right line.
 
+#include <algorithm>
 #include <cmath>
 #include <random>
 #include <string>
@@ -211,10 +212,10 @@ std::vector<BadProgram> bad_programs() {
        5},
       {"depth_of_cut", mill + "G0 X30 Y-20 Z5\nG1 Z-12 F500\nG1 Y180\nM30\n",
        FindingKind::DepthOfCut, Severity::Error, 6},
-      {"radial_engagement",
+      {"cutter_overload",
        mill + "G0 X32 Y-20 Z5\nG1 Z-6 F500\nG1 Y180\nG0 Z5\nT4 M6\nS800 M3\n"
               "G0 X31 Y-20 Z5\nG1 Z-6 F100\nG1 Y180\nM30\n",
-       FindingKind::RadialEngagement, Severity::Warning, 12},
+       FindingKind::CutterOverload, Severity::Error, 12},
       {"rapid_below_safe_height", mill + "G0 X0 Y80 Z1\nM30\n", FindingKind::RapidBelowSafeHeight,
        Severity::Warning, 4},
       {"spindle_speed", head + "T3 M6\nS5000 M3\nM30\n", FindingKind::SpindleSpeed,
@@ -236,6 +237,215 @@ TEST(checker, finds_each_bad_program_at_its_line) {
     EXPECT_TRUE(found) << describe(r);
     EXPECT_EQ(finding_kind_name(bad.kind), bad.name);
     EXPECT_EQ(r.has_errors(), bad.severity == Severity::Error || r.count(FindingKind::StockLeft));
+  }
+}
+
+// The plan with its end-mill roughing left out: the dovetail cutter's first
+// pass then runs through solid stock.
+Plan without_roughing(Plan p) {
+  std::erase_if(p.operations, [](const Operation& op) {
+    return op.kind == OperationKind::RoughSlot || op.kind == OperationKind::RoughShoulders;
+  });
+  return p;
+}
+
+// The line of the first cut along Y of tool `tool` in a program_from_plan
+// text: "T M6", "S M3", then per pass two rapids down, the feed to depth
+// and the cut.
+int first_cut_line(const std::string& program, int tool) {
+  const std::string change = fmt::format("T{} M6\n", tool);
+  const auto at = program.find(change);
+  EXPECT_NE(at, std::string::npos);
+  return static_cast<int>(std::count(program.begin(), program.begin() + at, '\n')) + 1 + 5;
+}
+
+int dovetail_cutter(const Plan& p) {
+  for (const Operation& op : p.operations)
+    if (op.kind == OperationKind::Undercut) return op.tool;
+  return 0;
+}
+
+const Finding* first_of(const CheckReport& r, FindingKind kind) {
+  for (const Finding& f : r.findings)
+    if (f.kind == kind) return &f;
+  return nullptr;
+}
+
+// Issue 12, item 1: a sample's own program with the end-mill roughing taken
+// out sends the dovetail cutter full width through solid stock on its first
+// pass. That pass is an error at its line, for every sample. (The half
+// dovetail keeps the end mill's pass along its square wall, which clears
+// the cutter's axis: its first pass cuts the whole undercut from one side.)
+TEST(checker, a_program_without_its_roughing_overloads_the_dovetail_cutter_at_its_first_pass) {
+  for (const auto& [name, words] : std::vector<std::pair<const char*, const char*>>{
+           {"stop-block-male.toml", "slots through material"},
+           {"fixture-slide-female.toml", "slots through material"},
+           {"fixture-slide-male.toml", "slots through material"},
+           {"height-stop-half-female.toml", "takes a radial cut of 0.2569 in"}}) {
+    SCOPED_TRACE(name);
+    const Job job = sample(name);
+    const Plan p = without_roughing(plan(job));
+    const std::string program = program_from_plan(p);
+    const CheckReport r = check_text(program, job);
+    EXPECT_TRUE(r.has_errors());
+    const Finding* f = first_of(r, FindingKind::CutterOverload);
+    ASSERT_NE(f, nullptr) << describe(r);
+    EXPECT_EQ(f->severity, Severity::Error);
+    EXPECT_EQ(f->line, first_cut_line(program, dovetail_cutter(p))) << describe(r);
+    EXPECT_NE(f->text.find(words), std::string::npos) << f->text;
+  }
+}
+
+// The same program for the male rail, kept as a file for the command-line
+// test (cli.check_no_roughing_fails: exit code 1, FAIL at line 7).
+TEST(checker, no_roughing_program_file_is_current) {
+  testing::expect_golden("tests/programs/no-roughing-male.ngc",
+                         program_from_plan(without_roughing(plan(sample("stop-block-male.toml")))));
+}
+
+// The male rail (tongue 40 mm across the top, 45 deg, 6 mm deep; T4 is a
+// 25 mm dovetail cutter), with T4's corner radius taken off so its cone
+// runs to the sharp corner: its radius at h above the tip is 12.5 - h.
+Job sharp_cutter_job() {
+  Job job = sample("stop-block-male.toml");
+  job.tools[1].corner_radius = 0;
+  return job;
+}
+
+// The planner's largest radial step for the rail's dovetail cutter: it
+// steps from the end mill's shoulder wall (x = 20 + 0.25 rough allowance)
+// with the cone's tip edge on it (axis 32.75) to the finishing allowance
+// 0.2 mm off the finish axis 14 + 12.5 = 26.5, in 4 equal steps (plan
+// table in the README): (32.75 - 26.5 - 0.2) / 4 = 1.5125 mm.
+TEST(checker, the_radial_limit_is_the_planners_largest_step) {
+  double largest = 0;
+  for (const Pass* pass : all_passes(plan(sharp_cutter_job())))
+    if (pass->tool == 4) largest = std::max(largest, pass->radial_step);
+  EXPECT_NEAR(largest, 1.5125, 1e-9);
+}
+
+TEST(checker, a_dovetail_pass_three_times_the_planned_step_is_an_error_at_its_line) {
+  // T3 clears the right shoulder from x = 20.25 to the stock's edge (4
+  // passes, 12 mm wide, 6 mm deep); T4 then cuts at three planned steps
+  // in from the wall, axis 32.75 - 3 * 1.5125 = 28.2125. Its left edge at
+  // h above the tip is 28.2125 - 12.5 + h, so it takes 20.25 - 15.7125 - h
+  // = 4.5375 - h from the tongue; the rows start 0.005 mm above the tip
+  // (the male has no floor skin): 4.5325 mm.
+  std::string text = "G21 G90 G17\nT3 M6\nS2500 M3\n";
+  for (const double x : {26.25, 32.25, 38.25, 44.25})
+    text += fmt::format("G0 X{} Y-20 Z5\nG1 Z-6 F500\nG1 Y180\nG0 Z5\n", x);
+  text += "T4 M6\nS800 M3\nG0 X28.2125 Y-20 Z5\nG1 Z-6 F100\nG1 Y180\nG0 Z5\nM30\n";
+  // Lines: 1-3 set-up, 4-19 the shoulder, 20-21 T4, 22-23 down, 24 the cut.
+  const CheckReport r = check_text(text, sharp_cutter_job());
+  const Finding* f = first_of(r, FindingKind::CutterOverload);
+  ASSERT_NE(f, nullptr) << describe(r);
+  EXPECT_EQ(f->line, 24);
+  EXPECT_EQ(f->severity, Severity::Error);
+  EXPECT_NEAR(f->amount, 4.5325, 1e-3);
+  EXPECT_NEAR(f->limit, 1.5125, 1e-9);
+  EXPECT_NE(f->text.find("radial cut of 4.53"), std::string::npos) << f->text;
+}
+
+TEST(checker, a_dovetail_cutter_slotting_full_width_through_stock_is_an_error_at_its_line) {
+  // T4 runs 3 mm deep through the uncut right shoulder, axis at x = 30:
+  // solid stock on both sides of its axis, from the tip at z = -3 to the
+  // top face. The skin its bottom face may take across its diameter is the
+  // planner's default floor allowance, 0.12 mm, plus 2 % and 5 um: 2.8726
+  // mm of material on the axis above that. The widest row, 5 um above the
+  // tip (the male's own floor skin is none), is the cone's whole chord
+  // there, 2 (12.5 - h): 24.99 mm.
+  const std::string text =
+      "G21 G90 G17\nT4 M6\nS800 M3\nG0 X30 Y-20 Z5\nG1 Z-3 F100\n"
+      "G1 Y180\nG0 Z5\nM30\n";
+  const CheckReport r = check_text(text, sharp_cutter_job());
+  const Finding* f = first_of(r, FindingKind::CutterOverload);
+  ASSERT_NE(f, nullptr) << describe(r);
+  EXPECT_EQ(f->line, 6);
+  EXPECT_EQ(f->severity, Severity::Error);
+  EXPECT_NEAR(f->amount, 24.99, 1e-3);
+  EXPECT_NE(f->text.find("2.873 mm of material on its axis"), std::string::npos) << f->text;
+  EXPECT_EQ(r.count(FindingKind::Plunge), 0) << describe(r);
+  EXPECT_EQ(r.count(FindingKind::BodyCollision), 0) << describe(r);
+}
+
+TEST(checker, a_thin_skin_under_the_dovetail_cutter_is_no_overload) {
+  // The end mill leaves 0.02 mm on the rail's shelf (z = -5.98 from x =
+  // 20.25 out); the planner's first dovetail pass (axis 31.2375, its step
+  // 1.5125 mm) takes that skin across its whole diameter besides its step:
+  // thinner than the default floor allowance, no slot, and the step is
+  // the planned one.
+  std::string text = "G21 G90 G17\nT3 M6\nS2500 M3\n";
+  for (const double x : {26.25, 32.25, 38.25, 44.25})
+    text += fmt::format("G0 X{} Y-20 Z5\nG1 Z-5.98 F500\nG1 Y180\nG0 Z5\n", x);
+  text += "T4 M6\nS800 M3\nG0 X31.2375 Y-20 Z5\nG1 Z-6 F100\nG1 Y180\nG0 Z5\nM30\n";
+  const CheckReport r = check_text(text, sharp_cutter_job());
+  EXPECT_EQ(r.count(FindingKind::CutterOverload), 0) << describe(r);
+}
+
+TEST(checker, a_dovetail_cutters_neck_in_material_is_an_error_at_its_line) {
+  // T4's flutes are 7 mm long: with its tip 8 mm down in the uncut right
+  // shoulder its neck (9 mm across) runs through the top 1 mm of stock.
+  // That is a body_collision (coverage: it was found before issue 12 too),
+  // besides the slotting.
+  const std::string text =
+      "G21 G90 G17\nT4 M6\nS800 M3\nG0 X32 Y-20 Z5\nG1 Z-8 F100\n"
+      "G1 Y180\nG0 Z5\nM30\n";
+  const CheckReport r = check_text(text, sharp_cutter_job());
+  const Finding* neck = first_of(r, FindingKind::BodyCollision);
+  ASSERT_NE(neck, nullptr) << describe(r);
+  EXPECT_EQ(neck->line, 6);
+  EXPECT_EQ(neck->severity, Severity::Error);
+  EXPECT_NE(neck->text.find("the neck of T4"), std::string::npos) << neck->text;
+  ASSERT_NE(first_of(r, FindingKind::CutterOverload), nullptr) << describe(r);
+  EXPECT_EQ(first_of(r, FindingKind::CutterOverload)->line, 6);
+}
+
+// Issue 12, item 10: a gouge reports the largest distance of the material
+// cut from the finished part, measured from the part's outline.
+TEST(checker, a_gouge_reports_its_true_largest_depth_into_the_part) {
+  Job job = sharp_cutter_job();
+  // A band about the nominal, so the target (the band's middle) is the
+  // nominal section the figures below are worked from.
+  job.dovetail.tolerance = {-0.01, 0.01};
+  {
+    // The 12 mm end mill along the tongue's middle, tip 3 mm below its top
+    // face: a slot 12 wide and 3 deep. Its floor (|x| <= 6, z = -3) lies 3 mm
+    // below the top face and further from the flanks (x = +-(20 + z): at the
+    // floor's corner (6, -3), |6 + 3 - 20| / sqrt 2 = 7.8 mm): 3 mm deep,
+    // deepest at x = 0, z = -3.
+    const CheckReport r = check_text(
+        "G21 G90 G17\nT3 M6\nS2500 M3\nG0 X0 Y-20 Z5\nG1 Z-3 F500\nG1 Y180\nG0 Z5\nM30\n", job);
+    const Finding* f = first_of(r, FindingKind::Gouge);
+    ASSERT_NE(f, nullptr) << describe(r);
+    EXPECT_EQ(f->line, 6);
+    EXPECT_NEAR(f->amount, 3.0, 1e-3);
+    EXPECT_NE(f->text.find("3.000 mm deep into the finished part, allowed 0.010 mm; deepest near x "
+                           "= 0.000 mm, z = -3.000 mm"),
+              std::string::npos)
+        << f->text;
+  }
+  {
+    // The shoulder cleared by T3 to x = 20.25, then T4 at its finishing
+    // depth with its axis 1 mm inside the finish axis 26.5: the cone's edge
+    // (x = 13 + h at h above the tip, z = -6 + h) runs 1 mm laterally inside
+    // the right flank (x = 14 + h), 1 mm x sin 45 deg = 0.7071 mm square to
+    // it. Deepest is the tip corner (13, -6): the flank's foot from there
+    // falls below the flank, whose root corner (14, -6) is the nearest
+    // point of the part's outline, 1 mm away (the other points of the edge
+    // are sqrt((1 - h)^2 + h^2) < 1 from it and 0.7071 from the flank).
+    std::string text = "G21 G90 G17\nT3 M6\nS2500 M3\n";
+    for (const double x : {26.25, 32.25, 38.25, 44.25})
+      text += fmt::format("G0 X{} Y-20 Z5\nG1 Z-6 F500\nG1 Y180\nG0 Z5\n", x);
+    text += "T4 M6\nS800 M3\nG0 X25.5 Y-20 Z5\nG1 Z-6 F100\nG1 Y180\nG0 Z5\nM30\n";
+    const CheckReport r = check_text(text, job);
+    const Finding* f = first_of(r, FindingKind::Gouge);
+    ASSERT_NE(f, nullptr) << describe(r);
+    EXPECT_EQ(f->line, 24);
+    EXPECT_NEAR(f->amount, 1.0, 1e-3);
+    EXPECT_NE(f->text.find("1.000 mm deep into the finished part, allowed 0.010 mm; deepest near x "
+                           "= 13.000 mm, z = -6.000 mm"),
+              std::string::npos)
+        << f->text;
   }
 }
 
@@ -587,6 +797,37 @@ TEST(checker, the_report_lists_errors_first_and_collapses_repeated_findings) {
   // The groups in JSON keep the count; every finding is still listed.
   const std::string json = check_json(r);
   EXPECT_NE(json.find("\"finding_groups\""), std::string::npos);
+}
+
+// Issue 12, item 14: a program saved with a UTF-8 byte-order mark and CRLF
+// line ends (or old Mac CR ends, or a lone CR at the end) is the same
+// program: the same findings at the same lines, the same readings.
+std::string with_line_ends(const std::string& text, const std::string& end, bool bom) {
+  std::string out = bom ? "\xEF\xBB\xBF" : "";
+  for (char ch : text) out += ch == '\n' ? end : std::string(1, ch);
+  return out;
+}
+
+TEST(checker, a_byte_order_mark_and_crlf_line_ends_check_the_same_program) {
+  const Job job = sample("stop-block-male.toml");
+  const std::string clean = read_source_file("tests/programs/stop-block-male.ngc");
+  const std::string gouge = read_source_file("tests/programs/gouge-male.ngc");
+  for (const std::string* program : {&clean, &gouge}) {
+    const CheckReport lf = check_text(*program, job);
+    for (const auto& [end, bom] : std::vector<std::pair<std::string, bool>>{
+             {"\r\n", false}, {"\r\n", true}, {"\n", true}, {"\r", true}}) {
+      SCOPED_TRACE(::testing::PrintToString(end) + (bom ? " with BOM" : ""));
+      const CheckReport other = check_text(with_line_ends(*program, end, bom), job);
+      EXPECT_EQ(other, lf) << describe(other);
+    }
+  }
+  // The gouge stays at line 8 of gouge-male.ngc, behind the BOM too.
+  const CheckReport r = check_text(with_line_ends(gouge, "\r\n", true), job);
+  ASSERT_NE(first_of(r, FindingKind::Gouge), nullptr);
+  EXPECT_EQ(first_of(r, FindingKind::Gouge)->line, 8);
+  // A reader error on the first line counts its columns after the BOM.
+  StringProgramSource source("\xEF\xBB\xBFG21 Q1\r\n", "bom.ngc");
+  testing::expect_input_error([&] { check(source, job); }, {"bom.ngc:1:5"});
 }
 
 TEST(checker, reader_errors_name_the_program_and_line) {

@@ -113,6 +113,23 @@ TEST(job_reader, every_sample_job_reads) {
   }
 }
 
+// A file saved by an editor that writes a UTF-8 byte-order mark and CRLF
+// line ends (TOML 1.0 allows both) is the same job, and its errors name the
+// same lines.
+std::string bom_crlf(const std::string& text) {
+  std::string out = "\xEF\xBB\xBF";
+  for (char ch : text) out += ch == '\n' ? std::string("\r\n") : std::string(1, ch);
+  return out;
+}
+
+TEST(job_reader, a_byte_order_mark_and_crlf_line_ends_read_the_same_job) {
+  const std::string sample = testing::read_source_file("samples/stop-block-male.toml");
+  EXPECT_EQ(read_job(bom_crlf(sample), "j.toml"), read_job(sample, "j.toml"));
+  expect_input_error(
+      [] { read_job(bom_crlf(replace(valid, "depth = 0.375", "depth = = 0.375")), "j.toml"); },
+      {"j.toml:10:", "not valid TOML"});
+}
+
 TEST(job_reader, syntax_error_names_line_and_column) {
   expect_input_error([] { read_job(replace(valid, "depth = 0.375", "depth = = 0.375"), "j.toml"); },
                      {"j.toml:10:", "not valid TOML"});

@@ -1,5 +1,6 @@
 #include <algorithm>
 #include <cmath>
+#include <map>
 #include <random>
 #include <utility>
 
@@ -193,6 +194,56 @@ TEST_F(planner_property, roughing_steps_stay_under_the_deflection_limit) {
       if (pass->tool == cutter.number && pass->role == PassRole::Rough && pass->side) {
         EXPECT_LE(pass->deflection, limit * (1 + 1e-9)) << "pass " << pass->number;
       }
+  }
+}
+
+// No pass of the dovetail cutter takes more than its radial step anywhere
+// along the slide, also where it runs at a tapered gib's slope beside the
+// end mill's straight roughing (issue 12: the checker found such passes
+// taking up to five steps at the far end). At the tip the cone's edge
+// toward the flank lies at x_at(y) +- R; what it takes at y is how far that
+// edge runs past everything cut before it at that level: the end mill's
+// roughing (its outermost edge toward the flank) and the earlier passes.
+TEST_F(planner_property, no_undercut_pass_takes_more_than_its_step_along_the_slide) {
+  for (const auto& [job, p] : *plans_) {
+    const Tool& cutter = *first_tool(job, ToolKind::Dovetail);
+    const double radius = cutter.diameter / 2;
+    const bool female = job.dovetail.type == DovetailType::Female;
+    bool overloaded = false;  // one failure per job is enough
+    for (const Side side : {Side::Left, Side::Right}) {
+      if (!p.target.flank(side).angled) continue;
+      // +1 when the flank lies at +x of the cutter (female right, male left).
+      const double o = (side == Side::Right) == female ? 1.0 : -1.0;
+      double roughed = -o * HUGE_VAL;
+      for (const auto& op : p.operations) {
+        if (op.kind != OperationKind::RoughSlot && op.kind != OperationKind::RoughShoulders)
+          continue;
+        const double r = find_tool(job, op.tool)->diameter / 2;
+        for (const auto& pass : op.passes)
+          if (female || pass.side == side)
+            roughed = o > 0 ? std::max(roughed, pass.x + r) : std::min(roughed, pass.x - r);
+      }
+      const std::vector<double> ys = [&] {
+        std::vector<double> v;
+        for (int k = 0; k <= 64; ++k) v.push_back(job.dovetail.length * k / 64);
+        return v;
+      }();
+      std::map<double, std::vector<double>> cleared;  // per tip height, at each y
+      for (const auto* pass : all_passes(p)) {
+        if (pass->tool != cutter.number || (pass->side && *pass->side != side)) continue;
+        auto& c = cleared.try_emplace(pass->z, ys.size(), roughed).first->second;
+        for (std::size_t k = 0; k < ys.size(); ++k) {
+          const double edge = pass->x_at(ys[k]) + o * radius;
+          const double taken = o * (edge - c[k]);
+          if (pass->side && taken > pass->radial_step + 1e-6 && !overloaded) {
+            overloaded = true;
+            ADD_FAILURE() << "pass " << pass->number << " takes " << taken << " mm at y = " << ys[k]
+                          << " mm, its step is " << pass->radial_step << " mm";
+          }
+          c[k] = o > 0 ? std::max(c[k], edge) : std::min(c[k], edge);
+        }
+      }
+    }
   }
 }
 

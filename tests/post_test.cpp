@@ -65,6 +65,15 @@ TEST(post, iso6983_post_numbers_lines_and_frames_with_percent) {
   EXPECT_EQ(post.end_lines, (std::vector<std::string>{"M30", "%"}));
 }
 
+TEST(post, a_byte_order_mark_and_crlf_line_ends_read_the_same_post) {
+  std::ifstream in(source_path("post/rs274ngc-full.toml"));
+  std::stringstream text;
+  text << in.rdbuf();
+  std::string saved = "\xEF\xBB\xBF";
+  for (char ch : text.str()) saved += ch == '\n' ? std::string("\r\n") : std::string(1, ch);
+  EXPECT_EQ(read_post(saved, "p.toml"), read_post(text.str(), "p.toml"));
+}
+
 TEST(post, empty_file_is_refused_as_nameless) {
   expect_input_error([] { read_post("", "empty.toml"); }, {"empty.toml", "name", "missing"});
 }

@@ -24,7 +24,7 @@ enum class FindingKind {
   SpindleStopped,         // a feed move met material with the spindle stopped
   Plunge,                 // a dovetail cutter moved down into material
   DepthOfCut,             // flutes engaged to their top with material above them
-  RadialEngagement,       // a dovetail cutter took a wider radial cut than the planner allows
+  CutterOverload,         // a dovetail cutter slotted, or took a wider radial cut than planned
   RapidBelowSafeHeight,   // a rapid ran below the safe height over the stock outline
   SpindleSpeed,           // S above machine.max_rpm
   UnknownTool,            // the program cuts with a tool the job does not list

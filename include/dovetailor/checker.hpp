@@ -43,13 +43,22 @@ namespace dovetailor {
 // machine.max_rpm.
 //
 // Tolerances: a gouge is material removed from the finished part deeper than
-// half the width tolerance band (at least 1 um); stock left is material
-// outside the finished part thicker than the same. The reading at each
-// station must lie in the width tolerance band around the target reading.
-// The radial-engagement limit of a dovetail cutter is the largest radial step
-// the planner takes with it for this job (plan.hpp), or a tenth of its
-// diameter when the job cannot be planned (the planner's cap, common
-// practice); end mills are not limited (they slot at full width by design).
+// half the width tolerance band (at least 1 um); its depth is the largest
+// distance of the material cut from the finished part's outline. Stock left
+// is material outside the finished part thicker than the same. The reading
+// at each station must lie in the width tolerance band around the target
+// reading.
+// A dovetail cutter is overloaded (an error) when a move removes material
+// on its axis above the skin its bottom face may take across its diameter
+// (a female's floor allowance, at least the planner's default: it slots,
+// engaged across its diameter), or, above the floor skin the planner's own
+// passes take (a female's floor allowance), a lateral cut on one side wider
+// than the largest radial step the planner takes with it for this job
+// (plan.hpp), or a tenth of its diameter when the job cannot be planned (the
+// planner's cap, common practice); each limit plus 2 % and 5 um for a
+// program's rounding. It is measured for moves along Y and straight moves
+// within 45 deg of Y. End mills are not limited (they slot at full width by
+// design).
 //
 // Frames: every move comes from the interpreter in the work coordinates of
 // the active system; with the job's ProgramSetup (Job::program: program

@@ -43,6 +43,18 @@ class FindingSink {
   std::vector<int> last_line_ = std::vector<int>(16, -1);
 };
 
+// What a dovetail cutter may take (checker.hpp), mm: the largest radial
+// step the planner takes with it; the floor skin its bottom face takes in
+// the planner's passes (a female's floor allowance; the radial engagement
+// is read above it); and the skin it may take across its whole diameter
+// (at least the planner's default floor allowance: a male's shelf cleaned
+// up by the cutter is no slot).
+struct CutterLimits {
+  double radial_step = 0;
+  double floor_skin = 0;
+  double skin_across = 0;
+};
+
 // A tool ready to sweep: its body, and the "column" above its flutes (a
 // cylinder of the flutes' top radius from their top upward) used to tell
 // buried flutes. Silhouettes (chord profiles at d = 0) are kept on the grid
@@ -54,7 +66,7 @@ struct SimTool {
   ToolBody body;
   ToolBody column;
   bool dovetail = false;
-  double radial_limit = 0;  // mm; 0: not checked
+  CutterLimits limits;  // dovetail cutters only; radial_step 0: not checked
   struct Silhouette {
     BodyPart part = BodyPart::Flutes;
     std::vector<GridPoint> ring;
@@ -63,7 +75,7 @@ struct SimTool {
   std::vector<GridPoint> column_silhouette;
 };
 
-SimTool make_sim_tool(const Tool& tool, int index, double radial_limit);
+SimTool make_sim_tool(const Tool& tool, int index, const CutterLimits& limits);
 
 // Station-independent facts about one move.
 struct MoveFacts {
@@ -71,9 +83,14 @@ struct MoveFacts {
   MotionKind kind = MotionKind::Feed;
   bool spindle_on = false;
   bool plunging = false;  // the tip moves down
-  bool along_y = false;   // only y changes: radial engagement is measured
-  double axis_x = 0;      // tool axis, for along-Y moves
-  double tip_z = 0;       // the highest tip height of the move near the station
+  // The engagement of a dovetail cutter is measured for moves along Y and
+  // for straight moves within 45 deg of Y where they cross a station: the
+  // tool axis and the tip there, and the move's dx/dy.
+  bool along_y = false;
+  double axis_x = 0;
+  double axis_z = 0;
+  double axis_slope = 0;
+  double tip_z = 0;  // the highest tip height of the move near the station
 };
 
 // The area one move sweeps in one station plane, by purpose.

@@ -25,8 +25,8 @@ std::string_view finding_kind_name(FindingKind kind) {
       return "plunge";
     case FindingKind::DepthOfCut:
       return "depth_of_cut";
-    case FindingKind::RadialEngagement:
-      return "radial_engagement";
+    case FindingKind::CutterOverload:
+      return "cutter_overload";
     case FindingKind::RapidBelowSafeHeight:
       return "rapid_below_safe_height";
     case FindingKind::SpindleSpeed:

@@ -104,14 +104,14 @@ void add_other(StationSweep& sweep, BodyPart part, SectionRegion region) {
 
 }  // namespace
 
-SimTool make_sim_tool(const Tool& tool, int index, double radial_limit) {
+SimTool make_sim_tool(const Tool& tool, int index, const CutterLimits& limits) {
   SimTool sim;
   sim.number = tool.number;
   sim.index = index;
   sim.tool = tool;
   sim.body = tool_body(tool);
   sim.dovetail = tool.kind == ToolKind::Dovetail;
-  sim.radial_limit = sim.dovetail ? radial_limit : 0;
+  if (sim.dovetail) sim.limits = limits;
   const double top_radius = sim.dovetail
                                 ? tool.diameter / 2 - tool.flute_length * cot_deg(tool.angle)
                                 : tool.diameter / 2;

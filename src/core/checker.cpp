@@ -32,16 +32,24 @@ double largest_tool_radius(const Job& job) {
 }
 
 // What the planner says about this job: the safe height and, per dovetail
-// cutter, the largest radial step it takes. Jobs it cannot plan fall back to
-// its fixed figures.
+// cutter, the largest radial step it takes; and the floor skin the
+// cutters' bottom faces take (how far the end mill's roughing stops above
+// the deepest dovetail pass: a female's floor allowance). Jobs it cannot
+// plan fall back to its fixed figures.
 struct PlannerRules {
   double safe_z = 0;
+  double floor_skin = 0;
   std::vector<std::pair<int, double>> radial_limits;
 };
+
+// The planner's default floor allowance (planner.cpp).
+double default_floor_skin(Units units) { return by_units(units, 0.005, 0.12); }
 
 PlannerRules planner_rules(const Job& job) {
   PlannerRules rules;
   rules.safe_z = by_units(job.units, 0.2, 5);
+  if (job.dovetail.type == DovetailType::Female)
+    rules.floor_skin = job.strategy.floor_allowance.value_or(default_floor_skin(job.units));
   for (const Tool& t : job.tools)
     if (t.kind == ToolKind::Dovetail) rules.radial_limits.emplace_back(t.number, 0.1 * t.diameter);
   try {
@@ -53,6 +61,17 @@ PlannerRules planner_rules(const Job& job) {
         if (pass->tool == number) largest = std::max(largest, pass->radial_step);
       if (largest > 0) limit = largest;
     }
+    double roughed = HUGE_VAL, undercut = HUGE_VAL;
+    for (const Operation& op : p.operations) {
+      const bool rough =
+          op.kind == OperationKind::RoughSlot || op.kind == OperationKind::RoughShoulders;
+      for (const Pass& pass : op.passes) {
+        if (rough) roughed = std::min(roughed, pass.z);
+        if (op.kind == OperationKind::Undercut) undercut = std::min(undercut, pass.z);
+      }
+    }
+    if (roughed < HUGE_VAL && undercut < HUGE_VAL)
+      rules.floor_skin = std::max(0.0, roughed - undercut);
   } catch (const InputError&) {
     // A job the planner refuses can still be checked; its fixed rules apply.
   }
@@ -255,10 +274,12 @@ void Checker::motion(const Event& event, const Motion& m, StationSimulator& sim)
 CheckReport Checker::run(ProgramSource& program) {
   rules_ = planner_rules(job_);
   for (const Tool& t : job_.tools) {
-    double limit = 0;
+    detail::CutterLimits limits{
+        .floor_skin = rules_.floor_skin,
+        .skin_across = std::max(rules_.floor_skin, default_floor_skin(job_.units))};
     for (const auto& [number, l] : rules_.radial_limits)
-      if (number == t.number) limit = l;
-    tools_.push_back(detail::make_sim_tool(t, static_cast<int>(tools_.size()), limit));
+      if (number == t.number) limits.radial_step = l;
+    tools_.push_back(detail::make_sim_tool(t, static_cast<int>(tools_.size()), limits));
   }
   const std::vector<double> ys = station_positions(job_, options_.stations);
   const Tolerance& tol = job_.dovetail.tolerance;

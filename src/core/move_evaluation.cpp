@@ -17,30 +17,94 @@ Finding finding(FindingKind kind, Severity severity, double amount, double limit
           .text = std::move(text)};
 }
 
-// The widest lateral cut on either side of the axis: rows through the removed
-// area between `low` and `high`. The bottom face takes floor skins (axial
-// engagement, not radial), so rows in the lowest quarter of the flutes and
-// rows that reach across the axis are left out.
-double radial_engagement(const SectionRegion& removed, const Bounds2& b, double axis, double low,
-                         double high) {
-  constexpr int rows = 16;
-  double widest = 0;
+// Engagement of a dovetail cutter: a thin margin over the planner's own
+// figures. 5 um covers the rounding of positions in a program (a step
+// between two passes written at 3 decimals in mm or 4 in inch is off by at
+// most one unit of the last decimal, 2.54 um) and the section's chords;
+// 2 % more radial step bends the neck about 2 % more than the plan's bend
+// limit allows for, far from what breaks a cutter.
+double beyond(double limit) { return limit * 1.02 + 0.005; }
+
+// How a dovetail cutter's flutes meet what one move removes, in the
+// section up to `high`: how much material it removes on its axis above
+// `across_from` (it is engaged across its whole diameter there: it slots),
+// and the widest cut on either side of the axis in the rows above `low`
+// (its radial engagement; rows that run across the axis are a skin under
+// it, or the slot just measured). The width of a polygon on one side of a
+// vertical line is piecewise linear in height between its vertices and
+// the heights where its edges cross the line, so the rows there (and a
+// hair either side, for horizontal edges) hold the widest.
+struct Engagement {
+  double across = 0;  // height of material removed on the axis above `across_from`
+  double widest = 0;  // widest lateral cut on one side of the axis
+  double width = 0;   // widest row of the cut, both sides together
+};
+
+Engagement engagement(const SectionRegion& removed, const Bounds2& b, double axis, double low,
+                      double across_from, double high) {
+  Engagement e;
   low = std::max(low, b.z_min);
   high = std::min(high, b.z_max);
-  if (high <= low) return 0;
-  for (int i = 0; i < rows; ++i) {
-    const double z = low + (high - low) * (i + 0.5) / rows;
-    const auto spans = removed.row(z);
-    bool across = false;
-    double left = 0, right = 0;
-    for (const Span& s : spans) {
-      if (s.low < axis && s.high > axis) across = true;
-      left += std::max(0.0, std::min(s.high, axis) - s.low);
-      right += std::max(0.0, s.high - std::max(s.low, axis));
-    }
-    if (!across) widest = std::max({widest, left, right});
+  if (high <= low) return e;
+  std::vector<double> heights{low, high};
+  const auto within = [&](double z) {
+    if (z > low && z < high) heights.push_back(z);
+  };
+  for (const Span& s : removed.column(axis)) {
+    e.across += std::max(0.0, std::min(s.high, high) - std::max(s.low, across_from));
+    within(s.low);
+    within(s.high);
   }
-  return widest;
+  for (const auto& ring : removed.grid_rings())
+    for (const GridPoint& p : ring) within(from_grid(p.z));
+  std::sort(heights.begin(), heights.end());
+  heights.erase(std::unique(heights.begin(), heights.end()), heights.end());
+  constexpr double hair = 1e-6;
+  for (const double h : heights) {
+    for (const double z : {h - hair, h, h + hair}) {
+      if (z < low || z > high) continue;
+      double left = 0, right = 0;
+      bool across = false;
+      for (const Span& s : removed.row(z)) {
+        across = across || (s.low < axis && s.high > axis);
+        left += std::max(0.0, std::min(s.high, axis) - s.low);
+        right += std::max(0.0, s.high - std::max(s.low, axis));
+      }
+      e.width = std::max(e.width, left + right);
+      if (!across) e.widest = std::max({e.widest, left, right});
+    }
+  }
+  return e;
+}
+
+// How deep a gouge reaches into the finished part: the largest distance of
+// any of its points from the part's outline (square to the surface it was
+// cut into; for a cut down into a face, its depth below the face), and
+// where that is. Found by halving on the part shrunk by a trial depth
+// (round joins: the points at least that far inside) until the depth is
+// within 0.1 um; every point of the gouge is at least `shallowest` deep.
+struct GougeDepth {
+  double depth = 0;
+  Bounds2 deepest;  // the part of the gouge within 0.1 um of that depth
+};
+
+GougeDepth gouge_depth(const SectionRegion& gouge, const SectionRegion& part, double shallowest) {
+  const auto pb = *part.bounds();
+  double lo = shallowest;
+  double hi = std::min(pb.x_max - pb.x_min, pb.z_max - pb.z_min) / 2;
+  GougeDepth g{.depth = lo, .deepest = *gouge.bounds()};
+  while (hi - lo > 1e-4) {
+    const double mid = (lo + hi) / 2;
+    const SectionRegion deeper = intersect(gouge, offset(part, -mid));
+    if (deeper.empty()) {
+      hi = mid;
+    } else {
+      lo = mid;
+      g.deepest = *deeper.bounds();
+    }
+  }
+  g.depth = lo;
+  return g;
 }
 
 // How thick a cut the flutes take at their top: the removed material's width
@@ -93,16 +157,30 @@ Outcome evaluate_move(const Material& material, const StationTarget& target,
                                 "has no end-cutting centre and breaks",
                                 tool.number, show(deep))));
       }
-      if (tool.radial_limit > 0 && facts.along_y && facts.kind != MotionKind::Rapid) {
-        const double fl = tool.tool.flute_length;
-        const double ae =
-            radial_engagement(removed, rb, facts.axis_x, facts.tip_z + 0.25 * fl, facts.tip_z + fl);
-        if (ae > tool.radial_limit * 1.02 + 0.005) {
+      const CutterLimits& limits = tool.limits;
+      if (limits.radial_step > 0 && facts.along_y && facts.kind != MotionKind::Rapid) {
+        // Read across the move: a slanted pass's section is sqrt(1 + s^2)
+        // wider than the cut square to its path.
+        const double across_path = 1 / std::hypot(1.0, facts.axis_slope);
+        const double tip = facts.axis_z;
+        const Engagement e =
+            engagement(removed, rb, facts.axis_x, tip + beyond(limits.floor_skin),
+                       tip + beyond(limits.skin_across), tip + tool.tool.flute_length);
+        const double ae = e.widest * across_path;
+        if (e.across > 1e-4) {
+          const double width = e.width * across_path;
           out.findings.push_back(finding(
-              FindingKind::RadialEngagement, Severity::Warning, ae, tool.radial_limit,
-              fmt::format("dovetail cutter T{} takes a radial cut of {}; the planner's limit "
-                          "for it is {}",
-                          tool.number, show(ae), show(tool.radial_limit))));
+              FindingKind::CutterOverload, Severity::Error, width, limits.radial_step,
+              fmt::format("dovetail cutter T{} slots through material, engaged across its "
+                          "diameter: a cut {} wide with {} of material on its axis, where the "
+                          "planner steps it {} at a time from one side; it breaks",
+                          tool.number, show(width), show(e.across), show(limits.radial_step))));
+        } else if (ae > beyond(limits.radial_step)) {
+          out.findings.push_back(finding(
+              FindingKind::CutterOverload, Severity::Error, ae, limits.radial_step,
+              fmt::format("dovetail cutter T{} takes a radial cut of {}; the largest step the "
+                          "planner takes with it is {}",
+                          tool.number, show(ae), show(limits.radial_step))));
         }
       }
       // Engaged at their top: a cut there thicker than the tolerance's
@@ -126,14 +204,14 @@ Outcome evaluate_move(const Material& material, const StationTarget& target,
       }
       const SectionRegion gouge = intersect(removed, target.forbidden);
       if (gouge.area() > least_area) {
-        const double depth = thickness_of(gouge) + target.allowance;
-        const auto gb = *gouge.bounds();
+        const GougeDepth g = gouge_depth(gouge, target.part, target.allowance);
+        const auto& gb = g.deepest;
         out.findings.push_back(
-            finding(FindingKind::Gouge, Severity::Error, depth, target.allowance,
-                    fmt::format("gouge into the finished part about {} deep near x = {}, z = {} "
-                                "(allowed {})",
-                                show(depth), show((gb.x_min + gb.x_max) / 2),
-                                show((gb.z_min + gb.z_max) / 2), show(target.allowance))));
+            finding(FindingKind::Gouge, Severity::Error, g.depth, target.allowance,
+                    fmt::format("gouge {} deep into the finished part, allowed {}; deepest "
+                                "near x = {}, z = {}",
+                                show(g.depth), show(target.allowance),
+                                show((gb.x_min + gb.x_max) / 2), show((gb.z_min + gb.z_max) / 2))));
       }
       out.after = std::move(after);
     }

@@ -49,6 +49,9 @@ void Rs274Interpreter::push_motion(int line, MotionKind kind, PathSegment progra
 bool Rs274Interpreter::read_block() {
   if (!source_.next_line(text_)) return false;
   ++line_;
+  // A UTF-8 byte-order mark, as some editors write at the start of a file,
+  // is not part of the program.
+  if (line_ == 1 && text_.starts_with("\xEF\xBB\xBF")) text_.erase(0, 3);
   if (options_.block_delete) {
     const auto first = text_.find_first_not_of(" \t");
     if (first != std::string::npos && text_[first] == '/') return true;

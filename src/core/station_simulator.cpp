@@ -215,7 +215,13 @@ void StationSimulator::sweep_straight(const SimTool& tool, const Point3& from, c
     if (through) {
       const StationSweep& shape = crossing_shape(tool, dx / dy, dz / dy);
       const double t = (y - from.y) / dy;
-      apply_general(s, shifted(shape, to_grid(from.x + t * dx), to_grid(from.z + t * dz)), f, tool);
+      MoveFacts crossing = f;
+      crossing.along_y = std::abs(dx) <= std::abs(dy);
+      crossing.axis_x = from.x + t * dx;
+      crossing.axis_z = from.z + t * dz;
+      crossing.axis_slope = dx / dy;
+      apply_general(s, shifted(shape, to_grid(crossing.axis_x), to_grid(crossing.axis_z)), crossing,
+                    tool);
       continue;
     }
     const auto body = sweep_line(tool.body, from, to, y);
@@ -257,6 +263,8 @@ void StationSimulator::start_run(const SimTool& tool, const Point3& from, const 
   run_.facts.along_y = true;
   run_.facts.plunging = false;
   run_.facts.axis_x = from.x;
+  run_.facts.axis_z = from.z;
+  run_.facts.axis_slope = 0;
   run_.facts.tip_z = from.z;
   run_.x = from.x;
   run_.z = from.z;
