@@ -4,6 +4,7 @@
 
 #include <dovetailor/length_text.hpp>
 #include <dovetailor/plan_report.hpp>
+#include <dovetailor/text_wrap.hpp>
 
 #include "unit_text.hpp"
 
@@ -37,9 +38,11 @@ std::string tool_line(const Tool& t, const std::vector<const Pass*>& passes, con
                         t.material == ToolMaterial::Hss ? "HSS" : "carbide");
   std::string line = fmt::format("  T{:<3} {}", t.number, what);
   const detail::PassFeeds f = detail::pass_feeds(passes);
-  line += fmt::format("\n        {}; {}", detail::rpm_words(f, "rev/min"),
-                      detail::feed_words(
-                          f, [&](double v) { return s.feed(v); }, s.feed_unit()));
+  const std::string cutting =
+      fmt::format("{}; {}", detail::rpm_words(f, "rev/min"),
+                  detail::feed_words(
+                      f, [&](double v) { return s.feed(v); }, s.feed_unit()));
+  for (const auto& part : wrap_words(cutting, 80 - 8)) line += "\n        " + part;
   return line;
 }
 
