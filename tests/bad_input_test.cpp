@@ -390,6 +390,15 @@ std::vector<Case> catalogue() {
   c.push_back({"unknown_subcommand", {}, {"carve"}, {"carve", "pins, fit, plan"}});
   c.push_back({"unknown_flag", {}, {"pins", "--colour", "red"}, {"--colour"}});
   c.push_back({"plan_two_jobs", {{"a.toml", sample()}}, {"plan", "a.toml", "a.toml"}, {"a.toml"}});
+  // Where along the slide a trim reading was taken: on the dovetail, a number.
+  c.push_back({"trim_at_nan",
+               {{"job.toml", sample()}},
+               {"trim", "job.toml", "--checkpoint", "C", "--reading", "1.3583", "--at", "nan"},
+               {"--at", "on the dovetail"}});
+  c.push_back({"trim_at_behind_the_front_end",
+               {{"job.toml", sample()}},
+               {"trim", "job.toml", "--checkpoint", "C", "--reading", "1.3583", "--at", "-1"},
+               {"--at", "on the dovetail"}});
   return c;
 }
 

@@ -79,7 +79,7 @@ Post finer(Post post) {
 }
 
 const char* const samples[] = {"fixture-slide-female", "fixture-slide-male", "stop-block-male",
-                               "height-stop-half-female"};
+                               "height-stop-half-female", "spindle-slide-tapered-female"};
 
 Job sample_job(const char* sample) {
   const std::string path = std::string("samples/") + sample + ".toml";
@@ -91,6 +91,27 @@ TEST(gcode_round_trip, every_sample_for_every_post_reads_the_plan_to_the_toleran
     for (const char* post : posts)
       EXPECT_TRUE(round_trip(sample_job(sample), finer(load_post(post)), 5))
           << sample << " / " << post;
+}
+
+// Issue 12, item 12: the checker's target at each station is the plan's
+// final checkpoint reading moved along the slide as the checkpoint states
+// (reading_per_length from reading_at_y), so the station table and the
+// checkpoints agree on a tapered gib.
+TEST(gcode_round_trip, checker_targets_follow_the_checkpoint_reading_along_a_tapered_gib) {
+  const Job job = sample_job("spindle-slide-tapered-female");
+  const Plan p = plan(job);
+  const Checkpoint& c = p.checkpoints.back();
+  ASSERT_NE(c.reading_per_length, 0);
+  StringProgramSource source(write_program(p, finer(load_post("rs274ngc-full")), {}), "t.ngc");
+  const CheckReport r = check(source, job, {.stations = 5});
+  ASSERT_EQ(r.stations.size(), 5u);
+  for (const auto& s : r.stations)
+    EXPECT_NEAR(s.target_reading.value,
+                c.expected.value + c.reading_per_length * (s.y - c.reading_at_y), 1e-9)
+        << "y = " << s.y;
+  // The measured taper of the reading is the planned one, less the hair a
+  // slanted pass cuts wider (tests/tapered_flank.hpp: the same at every y).
+  EXPECT_NEAR(r.reading_taper, c.reading_per_length, 1e-5);
 }
 
 TEST(gcode_round_trip, every_sample_checks_clean_at_the_shipped_posts_decimals) {

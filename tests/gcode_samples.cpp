@@ -210,7 +210,7 @@ void write_job_program(const std::string& out_dir, const std::string& file_name,
 
 void write_job_programs(const std::string& source, const std::string& out_dir) {
   const char* samples[] = {"fixture-slide-female", "fixture-slide-male", "stop-block-male",
-                           "height-stop-half-female"};
+                           "height-stop-half-female", "spindle-slide-tapered-female"};
   const char* posts[] = {"rs274ngc-full", "small-control", "iso6983-numbered"};
   for (const char* sample : samples) {
     const std::string job_file = source + "/samples/" + sample + ".toml";

@@ -1,4 +1,7 @@
+#include <algorithm>
 #include <cmath>
+#include <random>
+#include <regex>
 #include <sstream>
 #include <vector>
 
@@ -9,6 +12,8 @@
 #include <dovetailor/job_reader.hpp>
 #include <dovetailor/planner.hpp>
 
+#include "feed_text.hpp"
+#include "random_jobs.hpp"
 #include "test_support.hpp"
 
 namespace dovetailor {
@@ -17,7 +22,7 @@ namespace {
 using testing::expect_input_error;
 
 const char* const samples[] = {"fixture-slide-female", "fixture-slide-male", "stop-block-male",
-                               "height-stop-half-female"};
+                               "height-stop-half-female", "spindle-slide-tapered-female"};
 const char* const posts[] = {"rs274ngc-full", "small-control", "iso6983-numbered"};
 
 Job sample(const std::string& name) {
@@ -42,6 +47,138 @@ bool has_word(const std::string& line, const std::string& word) {
   for (std::string w; in >> w;)
     if (w == word) return true;
   return false;
+}
+
+// The header's comments, joined into one text: every comment line before
+// the modal set-up, without its line number and comment marks.
+std::string header_text(const std::string& program) {
+  std::string out;
+  for (std::string line : lines_of(program)) {
+    if (line.find("modal set-up") != std::string::npos) break;
+    line = std::regex_replace(line, std::regex(R"(^N[0-9]+ )"), "");
+    if (line.starts_with("(") && line.ends_with(")"))
+      line = line.substr(1, line.size() - 2);
+    else if (line.starts_with("; "))
+      line = line.substr(2);
+    else
+      continue;
+    out += (out.empty() ? "" : " ") + line;
+  }
+  return out;
+}
+
+// One tool's entry in the header's tool list, up to the next entry.
+std::string header_tool(const std::string& header, int number) {
+  const auto at = header.find(fmt::format(" T{} ", number));
+  if (at == std::string::npos) return {};
+  std::smatch next;
+  const std::string rest = header.substr(at + 1);
+  if (std::regex_search(rest.begin() + 1, rest.end(), next,
+                        std::regex(R"( T[0-9]+ | coolant:| no tool length)")))
+    return rest.substr(0, static_cast<std::size_t>(next.position(0)) + 1);
+  return rest;
+}
+
+// Issue 12, item 11: the program shows the plan's warnings in its header,
+// as comments within the post's line length that never nest (RS274NGC
+// comments end at the first ')': NISTIR 6556, 3.3.4, from memory).
+TEST(gcode_writer, header_carries_the_plan_warnings) {
+  Plan p = plan(sample("spindle-slide-tapered-female"));
+  ASSERT_FALSE(p.warnings.empty());  // the sample's 4000 rev/min spindle caps the end mill
+  p.warnings.push_back(
+      "a warning with (parentheses) in it, long enough to need wrapping on "
+      "every post that writes comments no wider than eighty columns");
+  for (const char* name : posts) {
+    SCOPED_TRACE(name);
+    const Post post = shipped(name);
+    const std::string program = write_program(p, post, {});
+    const std::string header = header_text(program);
+    for (const auto& w : p.warnings) {
+      std::string shown = w;
+      std::replace(shown.begin(), shown.end(), '(', '[');
+      std::replace(shown.begin(), shown.end(), ')', ']');
+      EXPECT_NE(header.find("WARNING: " + shown), std::string::npos) << header;
+    }
+    for (const auto& line : lines_of(program)) {
+      EXPECT_LE(line.size(), static_cast<std::size_t>(post.max_line_length)) << line;
+      EXPECT_LE(std::count(line.begin(), line.end(), '('), 1) << line;
+      EXPECT_LE(std::count(line.begin(), line.end(), ')'), 1) << line;
+    }
+  }
+}
+
+// Issue 12, item 11: the F words of a program are the feeds of the plan's
+// moves, in order, to the post's decimals, and the header's tool list gives
+// the lowest and highest roughing and finishing feed of each tool's passes
+// (for the height-stop sample it gave T1's slot feed alone).
+void expect_program_feeds_of_the_plan(const Plan& p, const Post& post) {
+  const std::string program = write_program(p, post, {});
+  const Units units = program_units(post, p.job.units);
+  std::vector<double> planned;
+  for (const Pass* pass : all_passes(p))
+    for (const auto& m : pass->moves)
+      if (m.kind == MoveKind::Feed && (planned.empty() || std::abs(m.feed - planned.back()) > 1e-9))
+        planned.push_back(m.feed);
+  std::vector<double> written;
+  for (const auto& line : lines_of(program)) {
+    std::istringstream words(line.substr(0, line.find_first_of("(;")));
+    for (std::string w; words >> w;)
+      if (w.size() > 1 && w[0] == 'F') written.push_back(std::stod(w.substr(1)));
+  }
+  ASSERT_EQ(written.size(), planned.size());
+  const double half_step = 0.5 * std::pow(10.0, -post.decimals.feed) + 1e-9;
+  for (std::size_t i = 0; i < written.size(); ++i)
+    EXPECT_NEAR(written[i], from_mm(planned[i], units), half_step) << "F word " << i + 1;
+  const std::string header = header_text(program);
+  if (units != p.job.units) return;  // the tool list is checked in the job's units
+  for (const auto& op : p.operations) {
+    const std::string entry = header_tool(header, op.tool);
+    EXPECT_EQ(testing::stated_feeds(entry),
+              testing::expected_feeds(testing::tool_passes(p, op.tool), units))
+        << entry;
+  }
+}
+
+TEST(gcode_writer, feeds_written_are_the_plan_feeds) {
+  for (const char* name : samples)
+    for (const char* post : posts) {
+      SCOPED_TRACE(std::string(name) + " " + post);
+      expect_program_feeds_of_the_plan(plan(sample(name)), shipped(post));
+    }
+}
+
+TEST(gcode_writer, feeds_written_are_the_plan_feeds_for_random_jobs) {
+  std::mt19937_64 rng(20261203);
+  std::vector<Post> all;
+  for (const char* post : posts) all.push_back(shipped(post));
+  for (int i = 0; i < testing::random_cases(200); ++i) {
+    const Job job = testing::random_job(rng);
+    Plan p;
+    try {
+      p = plan(job);
+    } catch (const InputError&) {
+      continue;  // refused jobs are the planner tests' business
+    }
+    SCOPED_TRACE(i);
+    for (const auto& post : all) expect_program_feeds_of_the_plan(p, post);
+  }
+}
+
+// Issue 12, item 12: on a tapered gib every checkpoint stop says where its
+// reading holds and how it runs along the slide (1:100 on 60 deg: 1 / (100
+// sin 60) = 0.011547 mm per mm, worked in planner_test).
+TEST(gcode_writer, tapered_gib_checkpoints_say_where_the_reading_holds) {
+  const Plan p = plan(sample("spindle-slide-tapered-female"));
+  const std::string program = write_program(p, shipped("rs274ngc-full"), {});
+  std::string comments;
+  for (const auto& line : lines_of(program))
+    if (line.starts_with("(")) comments += line.substr(1, line.size() - 2) + " ";
+  std::size_t found = 0;
+  for (auto at = comments.find("these readings hold at the front end, y = 0.000 mm.");
+       at != std::string::npos; at = comments.find("these readings hold", at + 1))
+    ++found;
+  EXPECT_EQ(found, p.checkpoints.size()) << comments;
+  EXPECT_NE(comments.find("reading grows 0.011547 mm per mm of y"), std::string::npos);
 }
 
 TEST(gcode_writer, every_sample_for_every_post_matches_its_golden_program) {

@@ -103,8 +103,9 @@ TEST(job_reader, default_tolerance_favours_a_sliding_fit) {
 }
 
 TEST(job_reader, every_sample_job_reads) {
-  for (const char* name : {"samples/fixture-slide-female.toml", "samples/stop-block-male.toml",
-                           "samples/height-stop-half-female.toml"}) {
+  for (const char* name :
+       {"samples/fixture-slide-female.toml", "samples/stop-block-male.toml",
+        "samples/height-stop-half-female.toml", "samples/spindle-slide-tapered-female.toml"}) {
     std::ifstream in(testing::source_path(name));
     ASSERT_TRUE(in) << name;
     std::stringstream text;

@@ -2,6 +2,7 @@
 #include <cmath>
 #include <map>
 #include <random>
+#include <sstream>
 #include <utility>
 
 #include <gtest/gtest.h>
@@ -12,6 +13,7 @@
 #include <dovetailor/plan_report.hpp>
 #include <dovetailor/planner.hpp>
 
+#include "feed_text.hpp"
 #include "random_jobs.hpp"
 #include "test_support.hpp"
 
@@ -21,7 +23,7 @@ namespace {
 using testing::expect_input_error;
 
 const char* const samples[] = {"fixture-slide-female", "fixture-slide-male", "stop-block-male",
-                               "height-stop-half-female"};
+                               "height-stop-half-female", "spindle-slide-tapered-female"};
 
 Job sample(const std::string& name) {
   const std::string path = "samples/" + name + ".toml";
@@ -46,6 +48,102 @@ TEST(planner, text_plan_fits_80_columns) {
       start = end + 1;
     }
   }
+}
+
+// The lines of the text plan's tool list that describe tool `number`: its
+// line and the speeds and feeds under it.
+std::string tool_block(const std::string& text, int number) {
+  std::istringstream in(text.substr(0, text.find("\nOperation 1")));
+  std::string out;
+  bool in_tool = false;
+  for (std::string line; std::getline(in, line);) {
+    if (line.starts_with("  T")) in_tool = line.starts_with(fmt::format("  T{} ", number));
+    if (in_tool) out += line + "\n";
+  }
+  return out;
+}
+
+// Issue 12, item 11: the height-stop sample's T1 roughs the slot at one feed
+// and finishes the square wall at another; the tool list must give both, as
+// the passes run them (it gave the wall's feed alone).
+void expect_tool_feeds_of_the_passes(const Plan& p) {
+  const std::string text = format_plan(p);
+  for (const auto& op : p.operations) {
+    const std::string block = tool_block(text, op.tool);
+    EXPECT_EQ(testing::stated_feeds(block),
+              testing::expected_feeds(testing::tool_passes(p, op.tool), p.job.units))
+        << block;
+  }
+}
+
+TEST(planner, tool_list_states_the_feeds_the_passes_run_at) {
+  for (const char* name : samples) {
+    SCOPED_TRACE(name);
+    expect_tool_feeds_of_the_passes(plan(sample(name)));
+  }
+}
+
+// Tapered gib (job.hpp: taper N is 1:N on the gib's thickness, which is
+// normal to the flank). The gib thickens by 1/N per unit length toward the
+// back, so its flank moves laterally by 1 / (N sin a) per unit length (a
+// thickness t needs t / sin a laterally: domain brief, "Fit of a pair"), and
+// a lateral move d of one flank changes a two-pin reading by d (domain
+// brief, "Sensitivity"). The sample: 1:100 on the left flank of a 60 deg
+// female, 150 mm long. Worked by hand: sin 60 = 0.8660254, so
+// 1 / 86.60254 = 0.0115470 mm per mm; the left flank moves out (-X), the
+// groove widens, the reading between pins grows: +1.7321 mm at the back end.
+// At the front end the mouth is 40 mm, the floor 40 + 2 x 8 cot 60 = 49.2376
+// mm plus the gib's 3 / sin 60 = 3.4641 mm = 52.7017 mm; between 6 mm pins
+// (Machinery's Handbook rolls formula, k = 1 + cot 30 = 2.7320508):
+// 52.7017 - 6 x 2.7320508 = 36.3094 mm at the nominal; the band is 0 to
+// +0.020 mm and the plan aims at its middle, +0.010 mm on the width, which
+// a two-pin reading takes one for one: 36.3194 mm (38.0515 at the back).
+TEST(planner, tapered_gib_checkpoints_say_where_the_reading_holds_and_how_it_runs) {
+  const Plan p = plan(sample("spindle-slide-tapered-female"));
+  ASSERT_EQ(p.checkpoints.size(), 3u);
+  for (const auto& c : p.checkpoints) {
+    EXPECT_EQ(c.reading_at_y, 0);
+    EXPECT_NEAR(c.reading_per_length, 0.0115470, 1e-7);
+  }
+  const Checkpoint& last = p.checkpoints.back();
+  EXPECT_NEAR(last.expected.value, 36.3094 + 0.010, 1e-4);
+  EXPECT_NEAR(last.expected.value + last.reading_per_length * 150, 36.3194 + 1.7321, 1e-4);
+  std::string text = format_plan(p);
+  for (auto at = text.find("\n  "); at != std::string::npos; at = text.find("\n  ", at))
+    text.replace(at, 3, " ");  // wrapped lines joined
+  EXPECT_NE(text.find("these readings hold at the front end, y = 0.000"), std::string::npos)
+      << text;
+  EXPECT_NE(text.find("grows 0.011547 mm per mm of y (38.051 mm at the back end, y ="),
+            std::string::npos)
+      << text;
+  const std::string json = plan_json(p);
+  EXPECT_NE(json.find("\"reading_per_length\": 0.01154"), std::string::npos);
+  EXPECT_NE(json.find("\"reading_at_y\": 0.0"), std::string::npos);
+  // A parallel gib reads the same all along, and the plan says nothing of y.
+  const Plan parallel = plan(sample("fixture-slide-female"));
+  for (const auto& c : parallel.checkpoints) EXPECT_EQ(c.reading_per_length, 0);
+  EXPECT_EQ(format_plan(parallel).find("Tapered gib"), std::string::npos);
+}
+
+// A male with a tapered gib on its right flank: the flank moves in (+X to
+// -X), the tongue narrows toward the back and the reading over pins drops by
+// 1 / (N sin a) per unit length; the one-pin reading from the left stock
+// face to the right flank drops by the same (same rules as above).
+TEST(planner, tapered_gib_on_a_male_reads_less_toward_the_back) {
+  Job job = sample("fixture-slide-male");
+  job.dovetail.gib =
+      Gib{.side = Side::Right, .thickness = to_mm(0.09375, Units::Inch), .taper = 80};
+  const Plan p = plan(job);
+  const double rate = 1 / (80 * std::sin(radians(job.dovetail.angle)));  // 0.0144338 in per in
+  for (const auto& c : p.checkpoints) {
+    EXPECT_NEAR(c.reading_per_length, -rate, 1e-12);
+    ASSERT_TRUE(c.reference_reading.has_value());
+    EXPECT_NEAR(c.reference_per_length, -rate, 1e-12);
+  }
+  std::string text = format_plan(p);
+  for (auto at = text.find("\n  "); at != std::string::npos; at = text.find("\n  ", at))
+    text.replace(at, 3, " ");  // wrapped lines joined
+  EXPECT_NE(text.find("drops 0.014434 in per in of y"), std::string::npos) << text;
 }
 
 // The radius of a tool's body `h` above its tip, written out independently
@@ -184,6 +282,10 @@ TEST_F(planner_property, checkpoint_readings_follow_the_pin_formula_for_the_stoc
     }
     EXPECT_NEAR(p.checkpoints.back().expected.value, p.final_reading.value, 1e-9);
   }
+}
+
+TEST_F(planner_property, tool_list_states_the_feeds_the_passes_run_at) {
+  for (const auto& planned : *plans_) expect_tool_feeds_of_the_passes(planned.plan);
 }
 
 TEST_F(planner_property, roughing_steps_stay_under_the_deflection_limit) {

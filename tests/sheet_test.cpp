@@ -1,4 +1,5 @@
 #include <cmath>
+#include <random>
 #include <sstream>
 
 #include <gtest/gtest.h>
@@ -9,6 +10,8 @@
 #include <dovetailor/sheet.hpp>
 #include <dovetailor/sheet_text.hpp>
 
+#include "feed_text.hpp"
+#include "random_jobs.hpp"
 #include "test_support.hpp"
 
 namespace dovetailor {
@@ -58,7 +61,8 @@ TEST(sheet, manual_sample_text_matches_golden) {
 TEST(sheet, every_sample_fits_80_columns_in_ascii) {
   for (const char* sample :
        {"samples/height-stop-half-female.toml", "samples/fixture-slide-female.toml",
-        "samples/fixture-slide-male.toml", "samples/stop-block-male.toml"}) {
+        "samples/fixture-slide-male.toml", "samples/stop-block-male.toml",
+        "samples/spindle-slide-tapered-female.toml"}) {
     const std::string text = sheet_text(build_sheet(plan_of(sample), {.date = "today"}));
     std::istringstream lines(text);
     int number = 0;
@@ -142,6 +146,81 @@ TEST(sheet, every_pass_setting_and_reading_of_the_plan_is_on_the_sheet) {
         }
     EXPECT_EQ(boxes, p.checkpoints.size()) << sample;
   }
+}
+
+// Issue 12, item 11: every feed on the sheet is a feed of the plan's
+// passes. Each pass row gives its pass's feed; the set-up step of a tool
+// and each operation's introduction state the lowest and highest roughing
+// and finishing feeds of the passes they describe (the height-stop sample's
+// set-up gave T1's slot feed only, though its square-wall pass runs faster).
+void expect_sheet_feeds_of_the_plan(const Plan& p) {
+  const Sheet sheet = build_sheet(p, {});
+  for (const Pass* pass : all_passes(p)) {
+    const Row row = pass_row(sheet, pass->number);
+    const std::string feed = row.at("Feed");
+    EXPECT_EQ(feed.substr(feed.find(' ') + 1), testing::feed_figure(pass->feed, p.job.units))
+        << "pass " << pass->number;
+  }
+  for (const auto& tool : p.job.tools) {
+    const auto passes = testing::tool_passes(p, tool.number);
+    if (passes.empty()) continue;
+    std::string step;
+    for (const auto& item : sheet.setup.items)
+      if (item.starts_with(fmt::format("T{} ", tool.number))) step = item;
+    EXPECT_EQ(testing::stated_feeds(step), testing::expected_feeds(passes, p.job.units)) << step;
+  }
+  ASSERT_EQ(sheet.operations.size(), p.operations.size());
+  for (std::size_t i = 0; i < p.operations.size(); ++i) {
+    std::vector<const Pass*> passes;
+    for (const auto& pass : p.operations[i].passes) passes.push_back(&pass);
+    const std::string intro = sheet.operations[i].intro.front();
+    EXPECT_EQ(testing::stated_feeds(intro), testing::expected_feeds(passes, p.job.units)) << intro;
+  }
+}
+
+TEST(sheet, every_feed_on_the_sheet_is_the_plan_feed) {
+  for (const char* sample :
+       {"samples/height-stop-half-female.toml", "samples/fixture-slide-female.toml",
+        "samples/fixture-slide-male.toml", "samples/stop-block-male.toml",
+        "samples/spindle-slide-tapered-female.toml"}) {
+    SCOPED_TRACE(sample);
+    expect_sheet_feeds_of_the_plan(plan_of(sample));
+  }
+}
+
+TEST(sheet, every_feed_on_the_sheet_is_the_plan_feed_for_random_jobs) {
+  std::mt19937_64 rng(20261203);
+  for (int i = 0; i < testing::random_cases(300); ++i) {
+    const Job job = testing::random_job(rng);
+    Plan p;
+    try {
+      p = plan(job);
+    } catch (const InputError&) {
+      continue;  // refused jobs are the planner tests' business
+    }
+    SCOPED_TRACE(i);
+    expect_sheet_feeds_of_the_plan(p);
+  }
+}
+
+// A tapered gib's checkpoint box says where its readings (and the table of
+// corrections) hold and how the reading runs along the slide: 1:100 on a
+// 60 deg flank, 1 / (100 sin 60) = 0.011547 mm per mm (see planner_test).
+TEST(sheet, tapered_gib_checkpoint_box_says_where_the_reading_holds) {
+  const Plan p = plan_of("samples/spindle-slide-tapered-female.toml");
+  const Sheet sheet = build_sheet(p, {});
+  std::size_t boxes = 0;
+  for (const auto& op : sheet.operations)
+    for (const auto& row : op.rows)
+      if (row.checkpoint) {
+        ++boxes;
+        std::string lines;
+        for (const auto& l : row.checkpoint->lines) lines += l + "\n";
+        EXPECT_NE(lines.find("hold at the front end, y = 0.000"), std::string::npos) << lines;
+        EXPECT_NE(lines.find("grows 0.011547 mm per mm of y"), std::string::npos) << lines;
+        EXPECT_NE(lines.find("The table below is for the front end."), std::string::npos);
+      }
+  EXPECT_EQ(boxes, p.checkpoints.size());
 }
 
 // The correction rule of the plan (remaining = remaining + error * rate):

@@ -213,6 +213,31 @@ TEST(trim, sheet_gives_cross_slide_moves_per_flank) {
   EXPECT_NE(sheet.find("Then measure: expect"), std::string::npos) << sheet;
 }
 
+// Issue 12, item 12: on a tapered gib the reading grows along the slide by
+// 1 / (N sin a) per unit length (worked in planner_test: 0.0115470 mm per mm
+// for the sample's 1:100 gib at 60 deg). The final reading taken at the back
+// end, 150 mm from the front, reads 1.7321 mm more than at the front end: a
+// reading 0.005 mm above that is on size there (the band is 0 to +0.020
+// mm, the plan aims at +0.010: the width comes out +0.015); the same figure
+// taken at the front end would be over size.
+TEST(trim, tapered_gib_reading_is_compared_where_it_was_taken) {
+  const Plan p = sample_plan("spindle-slide-tapered-female");
+  const std::size_t last = p.checkpoints.size() - 1;
+  const double front = p.checkpoints.back().expected.value;
+  const double back = front + 150 * 0.0115470;
+  const Trim there = trim(p, {.checkpoint = last, .reading = back + 0.005, .at_y = 150});
+  EXPECT_NEAR(there.expected, back, 1e-5);
+  EXPECT_NEAR(there.reading_error, 0.005, 1e-5);
+  EXPECT_EQ(there.verdict, TrimVerdict::OnSize);
+  const std::string text = flat(format_trim(p, there, SizingStyle::Plain));
+  EXPECT_NE(text.find("at y = 150.000 mm, expected 38.051 mm there"), std::string::npos) << text;
+  EXPECT_NE(text.find("grows 0.011547 mm per mm toward the back end"), std::string::npos) << text;
+  const Trim front_end = trim(p, {.checkpoint = last, .reading = back + 0.005});
+  EXPECT_EQ(front_end.verdict, TrimVerdict::OverCut);
+  expect_input_error([&] { trim(p, {.checkpoint = last, .reading = back, .at_y = 151}); },
+                     {"--at", "on the dovetail"});
+}
+
 TEST(trim, corrective_program_uses_the_post_sizing_style) {
   const Plan p = sample_plan("fixture-slide-female");
   const Trim t = trim(p, {.checkpoint = 2, .reading = inch(1.3563)});

@@ -99,6 +99,14 @@ struct Checkpoint {
   double expected_depth = 0;  // floor/shelf below the top plane, mm
   // With one pin from the stock face opposite the angled flank (male only).
   std::optional<double> reference_reading;
+  // Where along the slide the readings hold: y from the front end, mm. A
+  // tapered gib's flank runs at a slope to Y, so the reading changes along
+  // the slide: at y it is expected + reading_per_length * (y - reading_at_y)
+  // (mm per mm toward the back end; 0 without a tapered gib), and the
+  // reference reading changes by reference_per_length.
+  double reading_at_y = 0;
+  double reading_per_length = 0;
+  double reference_per_length = 0;
 
   bool operator==(const Checkpoint&) const = default;
 };

@@ -32,6 +32,10 @@ struct TrimRequest {
   std::size_t checkpoint = 0;     // index in plan.checkpoints
   double reading = 0;             // measured pin reading (or width without a gauge), mm
   std::optional<double> depth{};  // measured depth from the top face, mm
+  // Where along the slide the reading was taken: y from the front end, mm.
+  // It matters on a tapered gib, whose reading changes along the slide
+  // (Checkpoint::reading_per_length).
+  double at_y = 0;
 };
 
 enum class TrimVerdict {
@@ -71,6 +75,8 @@ struct Trim {
   std::size_t checkpoint = 0;
   char letter = 'A';
   double reading = 0;
+  double at_y = 0;                 // where it was taken, mm from the front end
+  double expected = 0;             // the checkpoint's reading there
   double reading_error = 0;        // measured - expected
   std::vector<FlankStock> flanks;  // the angled flanks
   TrimVerdict verdict = TrimVerdict::OnSize;
@@ -101,7 +107,8 @@ struct Trim {
 };
 
 // Throws InputError (field "--reading") for a reading that is not finite or
-// not positive, and (field "--depth") for such a depth.
+// not positive, (field "--depth") for such a depth, and (field "--at") for a
+// position off the dovetail.
 Trim trim(const Plan& plan, const TrimRequest& request);
 
 // The trim as text for an 80-column terminal, in the job's units: the

@@ -9,6 +9,7 @@
 #include <dovetailor/gcode_writer.hpp>
 #include <dovetailor/job_reader.hpp>
 #include <dovetailor/planner.hpp>
+#include <dovetailor/text_wrap.hpp>
 
 #include "commands.hpp"
 #include "file_io.hpp"
@@ -31,6 +32,17 @@ CoolantChoice parse_coolant(const std::string& word) {
   if (word == "mist") return CoolantChoice::Mist;
   if (word == "off") return CoolantChoice::Off;
   throw InputError("give flood, mist or off, not \"" + word + "\"", {}, "--coolant");
+}
+
+void print_plan_warnings(const Plan& plan) {
+  for (const auto& w : plan.warnings) {
+    const std::string first = "dovetailor: warning: ";
+    bool start = true;
+    for (const auto& line : wrap_words(w, 80 - first.size())) {
+      fmt::print(stderr, "{}{}\n", start ? first : std::string(first.size(), ' '), line);
+      start = false;
+    }
+  }
 }
 
 // Refuses to write the program over the job file it was made from.
@@ -59,10 +71,11 @@ void run_gcode(const GcodeOptions& o) {
       write_program(p, post, {.date = today(), .coolant = parse_coolant(o.coolant)});
   if (o.output.empty()) {
     fmt::print("{}", program);
-    return;
+  } else {
+    refuse_job_file(o.output, o.job_file);
+    write_file_atomically(o.output, program, o.force);
   }
-  refuse_job_file(o.output, o.job_file);
-  write_file_atomically(o.output, program, o.force);
+  print_plan_warnings(p);
 }
 
 }  // namespace

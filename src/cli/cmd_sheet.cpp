@@ -1,6 +1,5 @@
 // dovetailor sheet: the printed pass sheet for the machine, as text or PDF.
 
-#include <chrono>
 #include <filesystem>
 
 #include <fmt/format.h>
@@ -15,6 +14,7 @@
 
 #include "commands.hpp"
 #include "file_io.hpp"
+#include "program_output.hpp"
 
 namespace dovetailor::cli {
 namespace {
@@ -27,13 +27,6 @@ struct SheetCommandOptions {
   bool force = false;
 };
 
-std::string today() {
-  const auto now = std::chrono::floor<std::chrono::days>(std::chrono::system_clock::now());
-  const std::chrono::year_month_day day{now};
-  return fmt::format("{:04}-{:02}-{:02}", static_cast<int>(day.year()),
-                     static_cast<unsigned>(day.month()), static_cast<unsigned>(day.day()));
-}
-
 void run_sheet(const SheetCommandOptions& o) {
   const std::string ext = output_extension(o.output);
   if (ext != ".txt" && ext != ".pdf")
@@ -43,11 +36,12 @@ void run_sheet(const SheetCommandOptions& o) {
   const Sheet sheet = build_sheet(p, {.date = o.date.empty() ? today() : o.date});
   if (ext == ".txt") {
     write_file_atomically(o.output, sheet_text(sheet), o.force);
-    return;
+  } else {
+    const Drawing drawing = build_drawing(p);
+    write_file_atomically(
+        o.output, sheet_pdf(sheet, &drawing, o.paper == "a4" ? Paper::A4 : Paper::Letter), o.force);
   }
-  const Drawing drawing = build_drawing(p);
-  write_file_atomically(
-      o.output, sheet_pdf(sheet, &drawing, o.paper == "a4" ? Paper::A4 : Paper::Letter), o.force);
+  print_plan_warnings(p);
 }
 
 }  // namespace

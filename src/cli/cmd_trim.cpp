@@ -22,6 +22,7 @@ struct TrimOptions {
   std::string checkpoint;
   double reading = std::nan("");
   double depth = std::nan("");
+  double at = 0;
   std::string post = "rs274ngc-full";
   std::string output;
   std::string coolant = "flood";
@@ -38,6 +39,7 @@ void run_trim(const TrimOptions& o) {
   TrimRequest request{.checkpoint = find_checkpoint(p, o.checkpoint),
                       .reading = to_mm(o.reading, job.units)};
   if (!std::isnan(o.depth)) request.depth = to_mm(o.depth, job.units);
+  request.at_y = to_mm(o.at, job.units);
   const Trim t = trim(p, request);
   fmt::print("{}", format_trim(p, t, o.sheet ? SizingStyle::Plain : sizing_style(p, post)));
   if (t.verdict == TrimVerdict::OverCut)
@@ -74,6 +76,9 @@ void setup_trim(CLI::App& app) {
       ->required();
   cmd->add_option("--reading", o->reading, "Measured pin reading, in the job's units")->required();
   cmd->add_option("--depth", o->depth, "Measured depth from the top face, in the job's units");
+  cmd->add_option("--at", o->at,
+                  "Where the reading was taken: y from the front end, in the job's units "
+                  "(default 0; matters on a tapered gib)");
   cmd->add_option("--post", o->post, "Post name or path for the corrective program");
   cmd->add_option("-o,--output", o->output, "Write the corrective program to this file");
   cmd->add_option("--coolant", o->coolant, "flood (default), mist or off");

@@ -1,10 +1,11 @@
 #pragma once
 
-// Shared by the subcommands that write programs (gcode, trim).
+// Shared by the subcommands that write programs and sheets (gcode, trim, sheet).
 
 #include <string>
 
 #include <dovetailor/gcode_writer.hpp>
+#include <dovetailor/plan.hpp>
 
 namespace dovetailor::cli {
 
@@ -13,6 +14,11 @@ std::string today();
 
 // "flood", "mist" or "off"; an InputError naming --coolant otherwise.
 CoolantChoice parse_coolant(const std::string& word);
+
+// The plan's warnings on stderr, one "dovetailor: warning: ..." paragraph
+// each within 80 columns, so they reach the screen when the output goes to
+// a file or a pipe.
+void print_plan_warnings(const Plan& plan);
 
 // Refuses an output path that is the job file itself.
 void refuse_job_file(const std::string& output, const std::string& job_file);

@@ -18,16 +18,22 @@ std::string file_name(const std::string& path) {
   return slash == std::string::npos ? path : path.substr(slash + 1);
 }
 
-std::string tool_words(const Tool& t, const Operation& op, const ProgramShow& s) {
+// The tool with the speeds and feeds its passes run at (the F and S words).
+std::string tool_words(const Tool& t, const Plan& plan, const ProgramShow& s) {
   const std::string material = t.material == ToolMaterial::Hss ? "HSS" : "carbide";
+  const UnitText u{s.units};
+  const PassFeeds f = pass_feeds(passes_of_tool(plan, t.number));
+  const std::string cutting =
+      fmt::format("{}, {}", rpm_words(f, "rpm"),
+                  feed_words(
+                      f, [&](double v) { return u.feed(v); }, u.feed_unit()));
   if (t.kind == ToolKind::EndMill)
-    return fmt::format("T{} end mill {} dia, {} flutes, {}; {:.0f} rpm, feed {}", t.number,
-                       s.len(t.diameter), t.flutes, material, op.rpm, s.feed(op.feed));
+    return fmt::format("T{} end mill {} dia, {} flutes, {}; {}", t.number, s.len(t.diameter),
+                       t.flutes, material, cutting);
   return fmt::format(
-      "T{} dovetail cutter {} dia x {:g} deg, {} flutes, neck {}, corner radius {}, {}; "
-      "{:.0f} rpm, feed {}, finishing {}",
+      "T{} dovetail cutter {} dia x {:g} deg, {} flutes, neck {}, corner radius {}, {}; {}",
       t.number, s.len(t.diameter), t.angle, t.flutes, s.len(t.neck_diameter),
-      s.len(t.corner_radius), material, op.rpm, s.feed(op.feed), s.feed(op.finish_feed));
+      s.len(t.corner_radius), material, cutting);
 }
 
 const Tool* cutter_of(const Plan& plan) {
@@ -120,7 +126,7 @@ std::vector<std::string> header_lines(const Plan& plan, const Post& post,
       seen = seen || other.tool == op.tool;
     }
     const Tool* tool = find_tool(job, op.tool);
-    if (tool && !seen) out.push_back(tool_words(*tool, op, s));
+    if (tool && !seen) out.push_back(tool_words(*tool, plan, s));
   }
   if (!post.tool_length_offset)
     out.push_back(
@@ -140,6 +146,9 @@ std::vector<std::string> header_lines(const Plan& plan, const Post& post,
       break;
   }
   out.push_back(sizing_words(plan, post, style, s));
+  // The plan's warnings, as the text plan gives them (the writer makes
+  // parentheses in them brackets, so no comment nests).
+  for (const auto& w : plan.warnings) out.push_back("WARNING: " + w);
   out.push_back(
       "CAUTION: advice, not a guarantee. Secure the work and the tool; guards and eye "
       "protection. Measure only with the spindle stopped. Never plunge the dovetail cutter or "
@@ -171,7 +180,11 @@ std::vector<std::string> checkpoint_lines(const Plan& plan, const Checkpoint& c,
   out.push_back(fmt::format("Check the depth from the top face: {}.", s.len(c.expected_depth)));
   out.push_back(fmt::format("Stock left on {}: {} laterally.", n == 2 ? "each flank" : "the flank",
                             s.len(c.remaining_per_flank)));
-  if (job.gauge) out.push_back("Rule, in job units: " + correction_rule(plan, c));
+  if (job.gauge) {
+    out.push_back("Rule, in job units: " + correction_rule(plan, c));
+    const std::string taper = taper_words(c, job.dovetail.length, UnitText{units});
+    if (!taper.empty()) out.push_back(taper);
+  }
   switch (style) {
     case SizingStyle::CutterCompensation:
       out.push_back(
@@ -199,11 +212,6 @@ std::string ProgramShow::num(double mm) const {
 
 std::string ProgramShow::len(double mm) const {
   return num(mm) + " " + std::string(unit_symbol(units));
-}
-
-std::string ProgramShow::feed(double mm_per_min) const {
-  return units == Units::Inch ? fmt::format("{:.1f} in/min", from_mm(mm_per_min, units))
-                              : fmt::format("{:.0f} mm/min", mm_per_min);
 }
 
 }  // namespace dovetailor::detail

@@ -15,7 +15,6 @@ struct ProgramShow {
   Units units;
   std::string num(double mm) const;
   std::string len(double mm) const;
-  std::string feed(double mm_per_min) const;  // "3.9 in/min"
 };
 
 using dovetailor::wrap_words;

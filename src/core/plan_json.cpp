@@ -5,6 +5,8 @@
 #include <dovetailor/length_text.hpp>
 #include <dovetailor/plan_report.hpp>
 
+#include "unit_text.hpp"
+
 namespace dovetailor {
 namespace {
 
@@ -43,9 +45,15 @@ std::string plan_json(const Plan& plan) {
     o["title"] = op.title;
     o["tool"] = op.tool;
     o["entry"] = op.entry;
-    o["rpm"] = std::round(op.rpm);
-    o["feed"] = len(op.feed, u);
-    o["finish_feed"] = len(op.finish_feed, u);
+    // From the passes, as the text writers state them: the highest roughing
+    // and finishing feed (either one when the operation has only one kind).
+    const detail::PassFeeds f = detail::pass_feeds(detail::passes_of(op));
+    o["rpm"] = f.rpm.empty() ? std::round(op.rpm) : std::round(f.rpm.high);
+    const double rough = f.rough.empty() ? f.finish.high : f.rough.high;
+    const double finish = f.finish.empty() ? f.rough.high : f.finish.high;
+    o["feed"] = f.rough.empty() && f.finish.empty() ? len(op.feed, u) : len(rough, u);
+    o["finish_feed"] =
+        f.rough.empty() && f.finish.empty() ? len(op.finish_feed, u) : len(finish, u);
     auto& passes = o["passes"] = nlohmann::json::array();
     for (const auto& p : op.passes) {
       nlohmann::json q;
@@ -79,6 +87,9 @@ std::string plan_json(const Plan& plan) {
     k["correction_per_reading"] = c.correction_per_reading;
     k["expected_depth"] = len(c.expected_depth, u);
     if (c.reference_reading) k["reference_reading"] = len(*c.reference_reading, u);
+    k["reading_at_y"] = len(c.reading_at_y, u);
+    k["reading_per_length"] = c.reading_per_length;
+    if (c.reference_reading) k["reference_per_length"] = c.reference_per_length;
     k["rule"] = correction_rule(plan, c);
     cps.push_back(k);
   }

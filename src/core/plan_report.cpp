@@ -4,6 +4,7 @@
 
 #include <dovetailor/length_text.hpp>
 #include <dovetailor/plan_report.hpp>
+#include <dovetailor/text_wrap.hpp>
 
 #include "unit_text.hpp"
 
@@ -27,7 +28,7 @@ std::string mode_name(MillingMode m) {
   return "";
 }
 
-std::string tool_line(const Tool& t, const Operation* op, const Show& s) {
+std::string tool_line(const Tool& t, const std::vector<const Pass*>& passes, const Show& s) {
   std::string what =
       t.kind == ToolKind::EndMill
           ? fmt::format("end mill {} dia, {} flutes, {}", s.len(t.diameter), t.flutes,
@@ -36,9 +37,12 @@ std::string tool_line(const Tool& t, const Operation* op, const Show& s) {
                         s.len(t.diameter), t.angle, t.flutes, s.num(t.neck_diameter),
                         t.material == ToolMaterial::Hss ? "HSS" : "carbide");
   std::string line = fmt::format("  T{:<3} {}", t.number, what);
-  if (op)
-    line += fmt::format("\n        {:.0f} rev/min; feed {} {}, finishing {} {}", op->rpm,
-                        s.feed(op->feed), s.feed_unit(), s.feed(op->finish_feed), s.feed_unit());
+  const detail::PassFeeds f = detail::pass_feeds(passes);
+  const std::string cutting =
+      fmt::format("{}; {}", detail::rpm_words(f, "rev/min"),
+                  detail::feed_words(
+                      f, [&](double v) { return s.feed(v); }, s.feed_unit()));
+  for (const auto& part : wrap_words(cutting, 80 - 8)) line += "\n        " + part;
   return line;
 }
 
@@ -134,10 +138,8 @@ std::string format_plan(const Plan& plan) {
   line("");
   line("Tools");
   for (const auto& tool : job.tools) {
-    const Operation* op = nullptr;
-    for (const auto& o : plan.operations)
-      if (o.tool == tool.number) op = &o;
-    if (op) line(tool_line(tool, op, s));
+    const auto passes = detail::passes_of_tool(plan, tool.number);
+    if (!passes.empty()) line(tool_line(tool, passes, s));
   }
   int op_number = 0;
   for (const auto& op : plan.operations) {
@@ -187,6 +189,8 @@ std::string format_plan(const Plan& plan) {
     line(fmt::format("  Depth from the top face: {}.", s.len(c.expected_depth)));
     if (job.gauge) {
       out += wrap(correction_rule(plan, c), "  ", "  ");
+      const std::string taper = detail::taper_words(c, job.dovetail.length, s);
+      if (!taper.empty()) out += wrap(taper, "  ", "  ");
     }
   }
   if (!plan.notes.empty()) {

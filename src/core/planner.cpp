@@ -177,6 +177,15 @@ Checkpoint make_checkpoint(const PlanContext& ctx, const Plan& plan, std::string
     c.reference_reading =
         reference_reading(s, Side::Right, plan.job.gauge->pin_diameter, face) + stock;
   }
+  // The readings hold at the front end. A tapered gib's flank (and every
+  // pass on it) runs at its slope, so the stock left is the same all along
+  // and the width at the base plane changes by the flanks' slopes; each
+  // reading moves one for one with the flank it touches (domain brief,
+  // "Sensitivity").
+  const auto& spec = plan.job.dovetail;
+  c.reading_at_y = 0;
+  c.reading_per_length = flank_taper_slope(spec, Side::Right) - flank_taper_slope(spec, Side::Left);
+  c.reference_per_length = flank_taper_slope(spec, Side::Right);
   return c;
 }
 

@@ -177,6 +177,10 @@ CheckpointBox checkpoint_box(const Plan& plan, const Checkpoint& c, char letter,
                                   plan.target.angled_flanks() == 2 ? "each flank" : "the flank",
                                   s.len(c.remaining_per_flank), s.len(c.expected_depth)));
   if (job.gauge) {
+    const std::string taper = detail::taper_words(c, job.dovetail.length, s);
+    if (!taper.empty()) box.lines.push_back(taper + " The table below is for the front end.");
+  }
+  if (job.gauge) {
     box.measured_label = fmt::format("Measured reading ({})", unit_symbol(job.units));
     box.corrections = correction_table(plan, c, x_dial, s);
   }
@@ -273,14 +277,13 @@ Sheet build_sheet(const Plan& plan, const SheetOptions& options) {
       "Square the stock; hold it top face up with the slide running along Y from the front end "
       "(y = 0) for {}. Work zero: the top face, on the dovetail centre line, at the front end.",
       s.len(job.dovetail.length)));
+  const auto feed_num = [&](double v) { return s.feed(v); };
   for (const auto& tool : job.tools) {
-    for (const auto& op : plan.operations) {
-      if (op.tool != tool.number) continue;
-      steps.push_back(fmt::format("{}: {:.0f} rev/min, feed {} {} (finishing {}).",
-                                  tool_words(tool, s), op.rpm, s.feed(op.feed), s.feed_unit(),
-                                  s.feed(op.finish_feed)));
-      break;
-    }
+    const auto passes = detail::passes_of_tool(plan, tool.number);
+    if (passes.empty()) continue;
+    const detail::PassFeeds f = detail::pass_feeds(passes);
+    steps.push_back(fmt::format("{}: {}, {}.", tool_words(tool, s), detail::rpm_words(f, "rev/min"),
+                                detail::feed_words(f, feed_num, s.feed_unit())));
   }
   if (dials) {
     steps.push_back(x_datum_words(plan, *dials, s));
@@ -304,10 +307,12 @@ Sheet build_sheet(const Plan& plan, const SheetOptions& options) {
   for (const auto& op : plan.operations) {
     OperationTable table;
     table.title = fmt::format("Operation {}: {} with T{}", ++op_number, op.title, op.tool);
-    if (const Tool* tool = find_tool(job, op.tool))
-      table.intro.push_back(fmt::format("{}; {:.0f} rev/min; feed {} {}, finishing {} {}.",
-                                        tool_words(*tool, s), op.rpm, s.feed(op.feed),
-                                        s.feed_unit(), s.feed(op.finish_feed), s.feed_unit()));
+    if (const Tool* tool = find_tool(job, op.tool)) {
+      const detail::PassFeeds f = detail::pass_feeds(detail::passes_of(op));
+      table.intro.push_back(fmt::format("{}; {}; {}.", tool_words(*tool, s),
+                                        detail::rpm_words(f, "rev/min"),
+                                        detail::feed_words(f, feed_num, s.feed_unit())));
+    }
     table.intro.push_back(fmt::format("Entry: {}.", op.entry));
     if (dials && op.tool != tool_in_spindle) {
       table.intro.push_back(fmt::format(

@@ -120,6 +120,12 @@ Trim trim(const Plan& plan, const TrimRequest& request) {
     throw InputError("the depth must be a positive number, measured from the top face", {},
                      "--depth");
   const Checkpoint& c = plan.checkpoints[request.checkpoint];
+  const double length = plan.job.dovetail.length;
+  if (!std::isfinite(request.at_y) || request.at_y < -tiny || request.at_y > length + tiny)
+    throw InputError(fmt::format("the reading must be taken on the dovetail, y from 0 at the "
+                                 "front end to {:g} at the back, in the job's units",
+                                 from_mm(length, plan.job.units)),
+                     {}, "--at");
   const bool female = plan.target.type == DovetailType::Female;
   const int n = plan.target.angled_flanks();
   const auto& tol = plan.job.dovetail.tolerance;
@@ -128,7 +134,9 @@ Trim trim(const Plan& plan, const TrimRequest& request) {
   t.checkpoint = request.checkpoint;
   t.letter = static_cast<char>('A' + request.checkpoint);
   t.reading = request.reading;
-  t.reading_error = request.reading - c.expected.value;
+  t.at_y = request.at_y;
+  t.expected = c.expected.value + c.reading_per_length * (request.at_y - c.reading_at_y);
+  t.reading_error = request.reading - t.expected;
   const double stock = c.remaining_per_flank + t.reading_error * c.correction_per_reading;
   for (Side side : {Side::Left, Side::Right})
     if (plan.target.flank(side).angled)

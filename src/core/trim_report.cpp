@@ -56,9 +56,19 @@ std::string format_trim(const Plan& plan, const Trim& t, SizingStyle style) {
   std::string out;
   out +=
       fmt::format("Trim after checkpoint {}: {} (after pass {})\n", t.letter, c.name, c.after_pass);
-  out += wrapped(fmt::format("Reading {}, expected {}: {} {}.", s.len(t.reading),
-                             s.len(c.expected.value), s.len(std::abs(t.reading_error)),
+  const bool tapered = c.reading_per_length != 0;
+  const std::string where = tapered || t.at_y != 0 ? fmt::format(" at y = {}", s.len(t.at_y)) : "";
+  out += wrapped(fmt::format("Reading {}{}, expected {}{}: {} {}.", s.len(t.reading), where,
+                             s.len(t.expected), where.empty() ? "" : " there",
+                             s.len(std::abs(t.reading_error)),
                              t.reading_error >= 0 ? "larger" : "smaller"));
+  if (tapered)
+    out += wrapped(fmt::format(
+        "Tapered gib: the reading {} {:.6f} {} per {} toward the back end ({} at the front end, "
+        "y = 0); --at gives the y where you measured, else the front end.",
+        c.reading_per_length > 0 ? "grows" : "drops", std::abs(c.reading_per_length),
+        unit_symbol(plan.job.units), unit_symbol(plan.job.units),
+        s.len(c.expected.value - c.reading_per_length * c.reading_at_y)));
   for (const auto& f : t.flanks)
     out += fmt::format("  {}: stock now {} (planned {}, error {})\n", side_words(f.side),
                        signed_len(s, f.now), s.len(f.planned), signed_len(s, f.error()));
@@ -95,9 +105,10 @@ std::string format_trim(const Plan& plan, const Trim& t, SizingStyle style) {
                            s.num(p.radial_step), s.num(p.stock_left));
       out += wrapped("X is the tool axis at the front end (* runs at the gib's taper), Z the tip.",
                      "  ");
-      out += wrapped(fmt::format(
-          "Expect after the trim: {} (good from {} to {}).", s.len(plan.final_reading.value),
-          s.num(final_reading_band(plan).low), s.len(final_reading_band(plan).high)));
+      out += wrapped(
+          fmt::format("Expect after the trim: {}{} (good from {} to {}).",
+                      s.len(plan.final_reading.value), tapered ? " at the front end" : "",
+                      s.num(final_reading_band(plan).low), s.len(final_reading_band(plan).high)));
       break;
     }
   }
@@ -191,7 +202,8 @@ std::string trim_sheet(const Plan& plan, const Trim& t) {
                                s.num(p.z), travel_words(p)));
     it->second = p.x;
   }
-  out += wrapped(fmt::format("Then measure: expect {}.", s.len(plan.final_reading.value)));
+  out += wrapped(fmt::format("Then measure: expect {}{}.", s.len(plan.final_reading.value),
+                             c.reading_per_length != 0 ? " at the front end" : ""));
   return out;
 }
 
