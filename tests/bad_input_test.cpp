@@ -343,6 +343,28 @@ std::vector<Case> catalogue() {
                {"fit", "a.toml", "b.toml"},
                {"both jobs are female"}});
   c.push_back({"fit_only_angle", {}, {"fit", "--angle", "60"}, {"--female-pin", "missing"}});
+  c.push_back(
+      {"fit_negative_male_depth",
+       {},
+       {"fit", "--angle", "60", "--female-reading", "1", "--female-pin", "0.25", "--female-depth",
+        "0.375", "--male-reading", "1.9", "--male-pin", "0.25", "--male-depth", "-0.3"},
+       {"--male-depth", "out of range"}});
+  c.push_back(
+      {"fit_nan_male_depth",
+       {},
+       {"fit", "--angle", "60", "--female-reading", "1", "--female-pin", "0.25", "--female-depth",
+        "0.375", "--male-reading", "1.9", "--male-pin", "0.25", "--male-depth", "nan"},
+       {"--male-depth"}});
+  c.push_back({"pins_overlapping_female_pins",
+               {},
+               {"pins", "--type", "female", "--units", "mm", "--angle", "60", "--depth", "4",
+                "--width", "10", "--pin", "3.7"},
+               {"--pin", "overlap"}});
+  c.push_back({"materials_unknown_name",
+               {},
+               {"materials", "unobtainium"},
+               {"unknown material", "nearest names"}});
+  c.push_back({"materials_bad_units", {}, {"materials", "--units", "furlong"}, {"--units"}});
   c.push_back({"unknown_subcommand", {}, {"carve"}, {"carve", "pins, fit, plan"}});
   c.push_back({"unknown_flag", {}, {"pins", "--colour", "red"}, {"--colour"}});
   c.push_back({"plan_two_jobs", {{"a.toml", sample()}}, {"plan", "a.toml", "a.toml"}, {"a.toml"}});

@@ -68,6 +68,31 @@ TEST(job_reader, reads_a_valid_job_in_millimetres) {
   EXPECT_DOUBLE_EQ(job.gauge->pin_diameter, 0.25 * 25.4);
 }
 
+TEST(job_reader, refuses_pins_that_cannot_sit_in_the_dovetail) {
+  // Female 1.5 in mouth narrowed to 0.3 in: floor 0.3 + 2 (0.375) cot 60 =
+  // 0.7330127 in; two pins overlap from D = 0.7330127 / 2.7320508 =
+  // 0.2683 in, so 0.3125 in pins cannot (their contact, 0.2344 in up the
+  // 0.375 in flank, could).
+  expect_input_error(
+      [] {
+        read_job(replace(replace(valid, "width = 1.5", "width = 0.3"), "pin_diameter = 0.25",
+                         "pin_diameter = 0.3125"),
+                 "j.toml");
+      },
+      {"j.toml:30:", "gauge.pin_diameter", "overlap", "smaller than 0.2683 in"});
+  // Male, 1.5 in top and 1.0670 in root on stock 1.54 in wide: shelves
+  // (1.54 - 1.0669873) / 2 = 0.2365064 in. A 0.3125 in pin's centre lies
+  // 0.15625 cot 30 = 0.2706329 in out from the root: 0.0341 in past the
+  // face. The largest pin: 2 (0.2365064) / cot 30 = 0.2731 in.
+  const std::string male = replace(replace(valid, "type = \"female\"", "type = \"male\""),
+                                   "size = [3.0, 6.0, 1.25]", "size = [1.54, 6.0, 1.25]");
+  EXPECT_NO_THROW(read_job(male, "m.toml"));
+  expect_input_error(
+      [&] { read_job(replace(male, "pin_diameter = 0.25", "pin_diameter = 0.3125"), "m.toml"); },
+      {"m.toml:30:", "gauge.pin_diameter", "cannot rest on the shelf", "by 0.0341 in",
+       "smaller than 0.2731 in"});
+}
+
 TEST(job_reader, default_tolerance_favours_a_sliding_fit) {
   const Job female = read_job(valid, "f.toml");
   EXPECT_DOUBLE_EQ(female.dovetail.tolerance.lower, 0);

@@ -140,5 +140,73 @@ TEST(pin_gauge, advice_marks_middle_third_contacts) {
   EXPECT_EQ(marked, 3);
 }
 
+// Two pins in a female sit r cot(a/2) in from each base corner, so their
+// centres lie W - D cot(a/2) apart; they overlap or touch when that is D or
+// less: W - D (1 + cot(a/2)) = P <= 0 (the handbook's reading, pin_gauge.hpp).
+// At 60 deg, W = 10 mm: D < 10 / 2.7320508 = 3.6602540 mm (hand-computed).
+TEST(pin_gauge, refuses_female_pins_that_overlap) {
+  const auto s = female_60(10, 4);
+  EXPECT_NEAR(largest_usable_pin(s), 3.6602540, 1e-7);
+  // D = 3.6: centres 10 - 3.6 (1.7320508) = 3.7646171 apart, P = +0.1646171.
+  EXPECT_TRUE(pin_problems(s, 3.6, 0, Units::Millimetre).empty());
+  // D = 3.7: centres 3.5914120 apart, less than 3.7; P = -0.1085880.
+  const auto problems = pin_problems(s, 3.7, 0, Units::Millimetre);
+  ASSERT_EQ(problems.size(), 1u);
+  EXPECT_NE(problems[0].find("overlap"), std::string::npos) << problems[0];
+  EXPECT_NE(problems[0].find("-0.109 mm"), std::string::npos) << problems[0];
+  EXPECT_NE(problems[0].find("smaller than 3.660 mm"), std::string::npos) << problems[0];
+  // Never suggested: the contact height (0.75 D on the 4 mm flank) allows up
+  // to 5.33 mm here, the floor only 3.66 mm, so 4 and 5 mm are out too.
+  std::vector<double> advised;
+  for (const auto& a : advise_pins(s, 0, Units::Millimetre)) advised.push_back(a.diameter);
+  EXPECT_EQ(advised, (std::vector<double>{1, 1.5, 2, 2.5, 3}));
+}
+
+TEST(pin_gauge, refuses_a_half_female_pin_that_reaches_the_square_flank) {
+  // One angled flank: the pin reaches (D/2) k from the corner, so
+  // D < 2 W / k = 20 / 2.7320508 = 7.3205081 mm.
+  DovetailSpec spec;
+  spec.type = DovetailType::Female;
+  spec.angle = 60;
+  spec.depth = 12;
+  spec.width = 10;
+  spec.width_at = WidthAt::Bottom;
+  spec.sides = AngledSides::Left;
+  const auto s = section_of(spec);
+  EXPECT_NEAR(largest_usable_pin(s), 7.3205081, 1e-7);
+  EXPECT_TRUE(pin_problems(s, 7.3, 0, Units::Millimetre).empty());
+  ASSERT_EQ(pin_problems(s, 7.35, 0, Units::Millimetre).size(), 1u);
+  EXPECT_NE(pin_problems(s, 7.35, 0, Units::Millimetre)[0].find("square flank"), std::string::npos);
+}
+
+// A male's pin rests on the shelf with its centre r cot(a/2) out from the
+// root corner; the shelf ends at the stock face. 60 deg, root 20 mm, depth
+// 4 mm, stock faces at +-14 mm: shelves 4 mm wide, so
+// D < 2 (4) / cot 30 = 8 / 1.7320508 = 4.6188022 mm (hand-computed).
+TEST(pin_gauge, refuses_male_pins_off_the_shelf) {
+  DovetailSpec spec;
+  spec.type = DovetailType::Male;
+  spec.angle = 60;
+  spec.depth = 4;
+  spec.width = 20;
+  spec.width_at = WidthAt::Bottom;
+  const auto s = section_of(spec);
+  const StockFaces stock{-14, 14};
+  EXPECT_NEAR(largest_usable_pin(s, stock), 4.6188022, 1e-7);
+  EXPECT_TRUE(pin_problems(s, 4.6, 0, Units::Millimetre, stock).empty());
+  // D = 4.7: the centre lies 2.35 (1.7320508) = 4.0703194 out, 0.070 mm past the face.
+  const auto problems = pin_problems(s, 4.7, 0, Units::Millimetre, stock);
+  ASSERT_EQ(problems.size(), 2u);  // both corners
+  EXPECT_NE(problems[0].find("left corner cannot rest on the shelf"), std::string::npos);
+  EXPECT_NE(problems[0].find("by 0.070 mm"), std::string::npos) << problems[0];
+  EXPECT_NE(problems[1].find("right corner"), std::string::npos);
+  // Without the stock the shelf is not known and only the flank limits:
+  // 2 (4) / 1.5 = 5.333 mm.
+  EXPECT_TRUE(pin_problems(s, 4.7, 0, Units::Millimetre).empty());
+  std::vector<double> advised;
+  for (const auto& a : advise_pins(s, 0, Units::Millimetre, stock)) advised.push_back(a.diameter);
+  EXPECT_EQ(advised, (std::vector<double>{1, 1.5, 2, 2.5, 3, 4}));
+}
+
 }  // namespace
 }  // namespace dovetailor

@@ -274,10 +274,11 @@ TEST(planner, refuses_a_tolerance_finer_than_the_machine_steps) {
   expect_input_error([&] { plan(job); }, {"dovetail.tolerance", "finer than the machine"});
 }
 
-TEST(planner, refuses_an_unknown_material_listing_the_known_ones) {
+TEST(planner, refuses_an_unknown_material_naming_the_nearest) {
   Job job = base_job();
-  job.part.material = "unobtainium";
-  expect_input_error([&] { plan(job); }, {"part.material", "unobtainium", "cast iron"});
+  job.part.material = "cast irn";
+  expect_input_error([&] { plan(job); }, {"part.material", "cast irn", "nearest names it knows",
+                                          "cast iron (grey-cast-iron)", "dovetailor materials"});
 }
 
 TEST(planner, refuses_open_ends_on_a_short_dovetail) {
@@ -363,6 +364,26 @@ TEST(planner, mate_sets_the_width_for_the_wanted_clearance) {
   const Plan p = plan(from_mate);
   ASSERT_FALSE(p.notes.empty());
   EXPECT_NE(p.notes.front().find("mate: female read"), std::string::npos);
+}
+
+TEST(planner, mate_shallower_than_this_male_costs_clearance) {
+  // The saddle made 0.4000 in deep against the 0.3750 in deep base: its top
+  // holds the base's top face 0.0250 above its shelf, which closes the gap
+  // by 2 (0.0250) cot 60 = 0.0288675 in (fit.hpp). The base's mouth is
+  // 1.9330127 - 0.4330127 = 1.5000, so the root is
+  // 1.5000 - 0.0015 - 0.0288675 = 1.4696325 in.
+  std::string text = testing::read_source_file("samples/fixture-slide-male.toml");
+  const auto at = text.find("depth = 0.3125");
+  ASSERT_NE(at, std::string::npos);
+  const auto end = text.find("tolerance");
+  text = text.substr(0, at) +
+         "depth = 0.400\n"
+         "mate = { type = \"female\", reading = 1.25, pin_diameter = 0.25, depth = 0.375, "
+         "clearance = 0.0015 }\n" +
+         text.substr(end);
+  const Job job = read_job(text, "mate.toml");
+  EXPECT_NEAR(from_mm(section_of(job.dovetail).width_bottom(), Units::Inch), 1.4696325, 1e-7);
+  EXPECT_NE(job.dovetail.mate_derivation.find("deeper than the female"), std::string::npos);
 }
 
 }  // namespace

@@ -37,6 +37,10 @@ struct Material {
   std::string key;   // short identifier, e.g. "low-carbon-steel"
   std::string name;  // for sheets and messages, e.g. "Low-carbon steel (1018, mild steel)"
   std::vector<std::string> aliases;
+  // The ISO 513 application group the cutting data is given for: "P" steel,
+  // "M" stainless steel, "K" cast iron, "N" non-ferrous metals and
+  // non-metals (the groups of the turning catalogue tables).
+  std::string group;
   SpeedRange hss_speed;      // m/min
   SpeedRange carbide_speed;  // m/min
   // End-mill chip load by tool diameter, diameters strictly ascending. The
@@ -74,12 +78,32 @@ std::string_view builtin_materials_text();
 // underscores ("Mild-Steel" and "mild steel" both give "mildsteel").
 std::string material_match_key(std::string_view name);
 
-// The material whose key or one of whose aliases matches `name` leniently
-// (see material_match_key), or nullptr.
+// A name as people write it, in words: lower case, split at every character
+// that is neither a letter nor a digit, "aluminum" read as "aluminium" and
+// "gray" as "grey", aluminium tempers dropped ("T6", "T651"; "6061T6" gives
+// "6061"), sorted, so the order of the words does not matter.
+std::vector<std::string> material_name_words(std::string_view name);
+
+// The material `name` means, or nullptr. In turn:
+//  1. its key or an alias gives the same material_match_key ("Mild-Steel"),
+//  2. or the same words in any order ("steel, mild"; "6061-T6" = "6061"),
+//  3. or the same words once the words that only say what kind of material
+//     it is are left out on both sides ("steel 1018" and "1018 steel" =
+//     "1018"; "6061-T6 aluminum" = "6061"; "O1 tool steel" = "O1"). A kind
+//     word ("steel", "aluminium", "stainless", "tool", "bronze", ...) counts
+//     only where the material's own names use it, so "4140 stainless" means
+//     nothing; standards' prefixes ("AISI", "SAE", "EN", "UNS") always drop.
+// A name that steps 2 or 3 would give to two materials matches neither.
 const Material* match_material(const MaterialTable& table, std::string_view name);
 
+// Up to `count` names of the table (keys and aliases, as written there)
+// nearest to `name`: most words in common first, then the fewest letters to
+// change (Levenshtein distance between the match keys).
+std::vector<std::string> nearest_material_names(const MaterialTable& table, std::string_view name,
+                                                std::size_t count);
+
 // As match_material, but an unknown or empty name is an InputError for the
-// job key part.material at `where`, listing the names that would be valid.
+// job key part.material at `where`, listing the nearest names.
 const Material& find_material(const MaterialTable& table, std::string_view name,
                               const SourcePlace& where = {});
 

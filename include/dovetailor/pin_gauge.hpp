@@ -69,12 +69,39 @@ PinPlacement place_pin(const DovetailSection& section, Side side, double pin_dia
 double reference_reading(const DovetailSection& section, Side side, double pin_diameter,
                          double reference_x);
 
-// Why a pin cannot measure this dovetail: its contact point lies above the
-// flank (into the chamfer or past the top plane), or it is no larger than the
-// corner radius the cutter leaves and would rest on the fillet. Empty when the
-// pin is usable.
+// The stock's side faces in work X. A male's shelf runs from the root of
+// each flank out to the face on its side.
+struct StockFaces {
+  double left = 0;
+  double right = 0;
+
+  bool operator==(const StockFaces&) const = default;
+};
+StockFaces stock_faces(const Job& job);
+
+// Why a pin cannot measure this dovetail, each reason in words:
+//  - its contact point lies above the flank (into the chamfer or past the
+//    top plane);
+//  - it is no larger than the corner radius the cutter leaves and would rest
+//    on the fillet;
+//  - female: the pins do not fit beside each other on the floor. Two pins'
+//    centres lie W_bottom - D cot(a/2) apart, and they overlap or touch when
+//    that is D or less, that is when the reading P = W_bottom - D k <= 0
+//    (with one angled flank, the pin reaches (D/2) k from the corner toward
+//    the square flank: W_bottom - (D/2) k <= 0);
+//  - male, when `stock` is given: the pin cannot rest on the shelf, because
+//    its contact with the shelf (under its centre, r cot(a/2) out from the
+//    root corner) lies at or beyond the stock face.
+// Empty when the pin is usable.
 std::vector<std::string> pin_problems(const DovetailSection& section, double pin_diameter,
-                                      double corner_radius, Units units);
+                                      double corner_radius, Units units,
+                                      const std::optional<StockFaces>& stock = std::nullopt);
+
+// The largest pin that the section holds: the contact below the chamfer, the
+// pins apart on a female floor, the pin on a male's shelf (when `stock` is
+// given). Pins must be smaller than this.
+double largest_usable_pin(const DovetailSection& section,
+                          const std::optional<StockFaces>& stock = std::nullopt);
 
 // The largest pin whose contact point stays below the chamfer:
 // D < 2(H - chamfer)/(1 + cos a).
@@ -92,10 +119,11 @@ struct PinAdvice {
 // 1/16 to 1 in; metric 1 to 25 mm), as mm. Common practice, no source.
 std::vector<double> common_pin_sizes(Units units);
 
-// The usable sizes of the common series for this section, smallest first,
+// The usable sizes (no pin_problems) of the common series for this section, smallest first,
 // with those whose contact lands in the middle third of the usable flank
 // marked; a contact there is the comfortable choice (common practice).
 std::vector<PinAdvice> advise_pins(const DovetailSection& section, double corner_radius,
-                                   Units units);
+                                   Units units,
+                                   const std::optional<StockFaces>& stock = std::nullopt);
 
 }  // namespace dovetailor

@@ -29,6 +29,7 @@ int run_cli(int argc, const char* const* argv) {
   setup_sheet(app);
   setup_draw(app);
   setup_check(app);
+  setup_materials(app);
   std::string names;
   bool known = false;
   for (const auto* sub : app.get_subcommands({})) {

@@ -2,12 +2,15 @@
 
 #include <cmath>
 #include <optional>
+#include <string>
+#include <vector>
 
 #include <fmt/format.h>
 #include <nlohmann/json.hpp>
 
 #include <dovetailor/fit.hpp>
 #include <dovetailor/job_reader.hpp>
+#include <dovetailor/text_wrap.hpp>
 
 #include "commands.hpp"
 #include "file_io.hpp"
@@ -27,14 +30,16 @@ struct FitOptions {
   double female_depth = NAN;
   double male_reading = NAN;
   double male_pin = NAN;
+  double male_depth = NAN;
   double clearance = NAN;
   bool json = false;
 };
 
 constexpr const char* convention =
-    "Assembly: the female's top face rests on the male's shelf. Lateral clearance is\n"
-    "the total side play of both flanks together; positive is clearance, negative\n"
-    "interference. Normal clearance is measured square to the flanks.";
+    "Assembly: the female rests as low as it goes, its top face on the male's shelf\n"
+    "or, when the male is the deeper, its floor on the male's top. Lateral clearance\n"
+    "is the total side play of both flanks together there; positive is clearance,\n"
+    "negative interference. Normal clearance is measured square to the flanks.";
 
 struct FitResult {
   Units units = Units::Inch;
@@ -49,6 +54,7 @@ struct FitResult {
   double female_pin = 0;
   double female_depth = 0;
   double male_pin = 0;
+  double male_depth = 0;
   double female_gib = 0;  // lateral gib allowances in the readings
   double male_gib = 0;
 };
@@ -95,6 +101,7 @@ FitResult fit_from_jobs(const FitOptions& o) {
   r.female_pin = female.gauge ? female.gauge->pin_diameter : 0;
   r.male_pin = male.gauge ? male.gauge->pin_diameter : 0;
   r.female_depth = female.dovetail.depth;
+  r.male_depth = male.dovetail.depth;
   r.female_gib = section_of(female.dovetail).gib_allowance;
   r.male_gib = section_of(male.dovetail).gib_allowance;
   if (!std::isnan(o.clearance)) r.clearance = to_mm(o.clearance, r.units);
@@ -112,11 +119,21 @@ FitResult fit_from_flags(const FitOptions& o) {
   r.female_pin = len(o.female_pin, "--female-pin");
   r.female_depth = len(o.female_depth, "--female-depth");
   r.male_pin = len(o.male_pin, "--male-pin");
-  if (!std::isnan(o.female_reading))
+  r.male_depth = len(o.male_depth, "--male-depth");
+  if (!std::isnan(o.female_reading)) {
+    // Between two pins that fit the groove the reading is their gap, which
+    // is positive: P = (distance of the centres) - D.
+    if (o.female_reading <= 0)
+      throw InputError(fmt::format("a reading between pins of {} or less means the pins "
+                                   "overlap or touch; measure again, or use smaller pins",
+                                   length(0, r.units)),
+                       {"flags"}, "--female-reading");
     r.female = MeasuredPart{DovetailType::Female, to_mm(o.female_reading, r.units), r.female_pin,
                             r.female_depth};
+  }
   if (!std::isnan(o.male_reading))
-    r.male = MeasuredPart{DovetailType::Male, to_mm(o.male_reading, r.units), r.male_pin, 0};
+    r.male =
+        MeasuredPart{DovetailType::Male, to_mm(o.male_reading, r.units), r.male_pin, r.male_depth};
   if (!std::isnan(o.clearance)) r.clearance = to_mm(o.clearance, r.units);
   if (!r.female && !r.male)
     throw InputError("give --female-reading, --male-reading or both", {"flags"}, "--*-reading");
@@ -129,15 +146,54 @@ FitResult fit_from_flags(const FitOptions& o) {
 
 void add_targets(FitResult& r) {
   if (!r.clearance) return;
-  const MeasuredPart male_target{DovetailType::Male, 0, r.male_pin, 0, r.male_gib};
+  const MeasuredPart male_target{DovetailType::Male, 0, r.male_pin, r.male_depth, r.male_gib};
   const MeasuredPart female_target{DovetailType::Female, 0, r.female_pin, r.female_depth,
                                    r.female_gib};
   if (r.female && r.male_pin > 0)
     r.target_male =
         reading_for_clearance(*r.female, male_target, r.angle, r.angled_flanks, *r.clearance);
-  if (r.male && r.female_pin > 0)
+  if (r.male && r.female_pin > 0) {
     r.target_female =
         reading_for_clearance(*r.male, female_target, r.angle, r.angled_flanks, *r.clearance);
+    if (*r.target_female <= 0)
+      throw InputError(
+          fmt::format("the female would read {} between {} pins: pins that size "
+                      "would overlap in its groove; give smaller pins",
+                      length(*r.target_female, r.units), length(r.female_pin, r.units)),
+          {"flags"}, "--female-pin");
+  }
+}
+
+// What the depths do to the fit, in words, and whether it assembles.
+std::vector<std::string> fit_notes(const FitResult& r) {
+  std::vector<std::string> notes;
+  if (!r.fit) return notes;
+  const Fit& f = *r.fit;
+  const Units u = r.units;
+  if (f.shelf_gap > 0)
+    notes.push_back(fmt::format(
+        "The male is {} deeper than the female: its top bears on the female's floor and "
+        "holds the female's top face {} above the shelf, and the flanks close in by {} "
+        "({} x {} x cot {:g}).",
+        length(f.shelf_gap, u), length(f.shelf_gap, u),
+        length(f.shelf_clearance - f.lateral_clearance, u), r.angled_flanks, number(f.shelf_gap, u),
+        r.angle));
+  if (!f.can_assemble) {
+    if (f.bearing_height <= 0)
+      notes.push_back("CANNOT ASSEMBLE: the flanks do not face each other.");
+    else if (f.shelf_gap > 0 && f.shelf_clearance >= 0)
+      notes.push_back(
+          fmt::format("CANNOT ASSEMBLE: the flanks interfere by {} where the parts "
+                      "come to rest; cut the male's top down to the female's depth "
+                      "or take the female's floor {} deeper.",
+                      length(-f.lateral_clearance, u), length(f.shelf_gap, u)));
+    else
+      notes.push_back(
+          fmt::format("CANNOT ASSEMBLE: the flanks interfere by {}; the female's mouth is narrower "
+                      "than the male's root.",
+                      length(-f.lateral_clearance, u)));
+  }
+  return notes;
 }
 
 void print_text(const FitResult& r) {
@@ -152,13 +208,27 @@ void print_text(const FitResult& r) {
         fmt::format("{} ({} pins, depth {})", length(r.female->reading, u), number(r.female_pin, u),
                     length(r.female_depth, u)));
   if (r.male)
-    row("Male reading over pins",
-        fmt::format("{} ({} pins)", length(r.male->reading, u), number(r.male_pin, u)));
+    row("Male reading over pins", fmt::format("{} ({} pins, depth {})", length(r.male->reading, u),
+                                              number(r.male_pin, u), length(r.male_depth, u)));
   if (r.fit) {
-    row("Lateral clearance", signed_length(r.fit->lateral_clearance, u) +
-                                 (r.fit->lateral_clearance < 0 ? "  INTERFERENCE" : ""));
-    row("  per flank", signed_length(r.fit->lateral_clearance / r.angled_flanks, u));
-    row("Normal clearance", signed_length(r.fit->normal_clearance, u));
+    const Fit& f = *r.fit;
+    if (!r.female || !r.male)
+      row("Depths",
+          fmt::format("female {}, male {}", length(r.female_depth, u), length(r.male_depth, u)));
+    if (f.shelf_gap > 0) {
+      row("Seat", "male's top on the female's floor");
+      row("Female top face above the shelf", length(f.shelf_gap, u));
+      row("Clearance at the shelf would be", signed_length(f.shelf_clearance, u));
+    } else {
+      row("Seat", "female's top face on the male's shelf");
+      row("Male top below the female floor", length(f.floor_gap, u));
+    }
+    row("Lateral clearance",
+        signed_length(f.lateral_clearance, u) + (f.lateral_clearance < 0 ? "  INTERFERENCE" : ""));
+    row("  per flank", signed_length(f.lateral_clearance / r.angled_flanks, u));
+    row("Normal clearance", signed_length(f.normal_clearance, u));
+    row("Flanks face each other over", length(f.bearing_height, u));
+    row("Assembles", f.can_assemble ? "yes" : "NO");
   }
   if (r.clearance) {
     fmt::print("\n");
@@ -170,6 +240,10 @@ void print_text(const FitResult& r) {
       row("Aim the female between pins at",
           fmt::format("{} ({} pins)", length(*r.target_female, u), number(r.female_pin, u)));
   }
+  for (const auto& note : fit_notes(r)) {
+    fmt::print("\n");
+    for (const auto& line : wrap_words(note, 80)) fmt::print("{}\n", line);
+  }
   fmt::print("\n{}\n", convention);
 }
 
@@ -178,12 +252,24 @@ void print_json(const FitResult& r) {
   nlohmann::json j;
   j["units"] = unit_name(u);
   j["angle"] = r.angle;
-  j["convention"] = "female top face on male shelf; lateral clearance is the total of both flanks";
+  j["convention"] =
+      "female as low as it goes (top face on the male's shelf, or floor on the male's top "
+      "when the male is deeper); lateral clearance is the total of both flanks there";
   if (r.female) j["female_reading"] = json_length(r.female->reading, u);
   if (r.male) j["male_reading"] = json_length(r.male->reading, u);
+  j["female_depth"] = json_length(r.female_depth, u);
+  j["male_depth"] = json_length(r.male_depth, u);
   if (r.fit) {
-    j["lateral_clearance"] = json_length(r.fit->lateral_clearance, u);
-    j["normal_clearance"] = json_length(r.fit->normal_clearance, u);
+    const Fit& f = *r.fit;
+    j["lateral_clearance"] = json_length(f.lateral_clearance, u);
+    j["normal_clearance"] = json_length(f.normal_clearance, u);
+    j["shelf_clearance"] = json_length(f.shelf_clearance, u);
+    j["seat"] = f.shelf_gap > 0 ? "male-top-on-female-floor" : "female-top-on-male-shelf";
+    j["shelf_gap"] = json_length(f.shelf_gap, u);
+    j["floor_gap"] = json_length(f.floor_gap, u);
+    j["bearing_height"] = json_length(f.bearing_height, u);
+    j["can_assemble"] = f.can_assemble;
+    j["notes"] = fit_notes(r);
   }
   if (r.clearance) j["wanted_clearance"] = json_length(*r.clearance, u);
   if (r.target_male) j["target_male_reading"] = json_length(*r.target_male, u);
@@ -218,6 +304,7 @@ void setup_fit(CLI::App& app) {
   cmd->add_option("--female-depth", o->female_depth, "Female depth, floor to mouth");
   cmd->add_option("--male-reading", o->male_reading, "Male reading over pins");
   cmd->add_option("--male-pin", o->male_pin, "Pin diameter used on the male");
+  cmd->add_option("--male-depth", o->male_depth, "Male depth, shelf to top face");
   cmd->add_option("--clearance", o->clearance,
                   "Wanted lateral clearance; prints the reading to aim for");
   cmd->add_flag("--json", o->json, "Print JSON instead of text");

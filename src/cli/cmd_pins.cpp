@@ -43,6 +43,9 @@ struct PinsCase {
   Tolerance tolerance;
   double pin = 0;
   double corner_radius = 0;
+  std::optional<StockFaces> stock;  // known from a job: a male's pins must rest on its shelf
+  std::string source;               // the file, or "flags"
+  std::string pin_field;            // where the pin size came from, for messages
   std::optional<Job> job;
 };
 
@@ -77,10 +80,14 @@ PinsCase case_from_job(const PinsOptions& o) {
   c.title = job.part.name.empty() ? o.job_file : job.part.name;
   c.section = section_of(job.dovetail);
   c.tolerance = job.dovetail.tolerance;
+  c.source = o.job_file;
+  c.stock = stock_faces(job);
   if (!std::isnan(o.pin)) {
     c.pin = to_mm(o.pin, job.units);
+    c.pin_field = "--pin";
   } else if (job.gauge) {
     c.pin = job.gauge->pin_diameter;
+    c.pin_field = "gauge.pin_diameter";
   } else {
     throw InputError("no pin size: add [gauge] pin_diameter to the job or give --pin", {o.job_file},
                      "gauge.pin_diameter");
@@ -101,6 +108,8 @@ PinsCase case_from_flags(const PinsOptions& o) {
   spec.sides = parse_sides(o.sides);
   spec.chamfer = to_mm(o.chamfer, c.units);
   c.pin = to_mm(require_flag(o.pin, "--pin", 0, 1e4), c.units);
+  c.source = "flags";
+  c.pin_field = "--pin";
   c.corner_radius = to_mm(o.corner_radius, c.units);
   const int angled = spec.sides == AngledSides::Both ? 2 : 1;
   if (std::isnan(o.width) == std::isnan(o.reading))
@@ -163,9 +172,7 @@ void print_text(const PinsCase& c) {
           length(reference_reading(s, side, c.pin, face), u));
     }
   }
-  const auto problems = pin_problems(s, c.pin, c.corner_radius, u);
-  for (const auto& p : problems) fmt::print("\n  WARNING: {}\n", p);
-  const auto advice = advise_pins(s, c.corner_radius, u);
+  const auto advice = advise_pins(s, c.corner_radius, u, c.stock);
   fmt::print("\nCommon pin sizes that fit (* = contact in the middle third of the flank):\n");
   if (advice.empty()) fmt::print("  none: the flank is too short for the common sizes\n");
   for (const auto& a : advice)
@@ -193,9 +200,9 @@ void print_json(const PinsCase& c) {
   j["gib_allowance"] = json_length(s.gib_allowance, u);
   j["contact_height"] = json_length(contact_height(c.pin, s.angle), u);
   j["pin_constant"] = pin_constant(s.angle);
-  j["problems"] = pin_problems(s, c.pin, c.corner_radius, u);
+  j["problems"] = pin_problems(s, c.pin, c.corner_radius, u, c.stock);
   auto& advice = j["pin_advice"] = nlohmann::json::array();
-  for (const auto& a : advise_pins(s, c.corner_radius, u))
+  for (const auto& a : advise_pins(s, c.corner_radius, u, c.stock))
     advice.push_back({{"diameter", json_length(a.diameter, u)},
                       {"contact_height", json_length(a.contact_height, u)},
                       {"middle_third", a.middle_third}});
@@ -204,6 +211,16 @@ void print_json(const PinsCase& c) {
 
 void run_pins(const PinsOptions& o) {
   const PinsCase c = o.job_file.empty() ? case_from_flags(o) : case_from_job(o);
+  // A pin that cannot measure this dovetail gives no reading worth printing.
+  const auto problems = pin_problems(c.section, c.pin, c.corner_radius, c.units, c.stock);
+  if (!problems.empty()) {
+    std::string why = problems.front();
+    for (std::size_t i = 1; i < problems.size(); ++i) {
+      why += "; and ";
+      why += problems[i];
+    }
+    throw InputError(why, {c.source}, c.pin_field);
+  }
   if (o.json) {
     print_json(c);
   } else {

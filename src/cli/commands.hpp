@@ -16,6 +16,7 @@ void setup_trim(CLI::App& app);
 void setup_sheet(CLI::App& app);
 void setup_draw(CLI::App& app);
 void setup_check(CLI::App& app);
+void setup_materials(CLI::App& app);
 
 // Thrown by a command that has written its output and must end the program
 // with this exit code (check: 1 when it found errors); caught in main.

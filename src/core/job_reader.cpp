@@ -4,6 +4,7 @@
 #include <fmt/format.h>
 
 #include <dovetailor/dovetail_section.hpp>
+#include <dovetailor/fit.hpp>
 #include <dovetailor/job_reader.hpp>
 #include <dovetailor/length_text.hpp>
 #include <dovetailor/pin_gauge.hpp>
@@ -197,24 +198,34 @@ class JobReader {
       return fmt::format("{:.{}f} {}", from_mm(mm, job_.units), length_decimals(job_.units) + 1,
                          unit_symbol(job_.units));
     };
-    if (m.type == DovetailType::Male) {
+    // A male deeper than the female lifts it off the shelf and closes the
+    // gap by n (H_m - H_f) cot a (fit.hpp); a male mate's depth is optional.
+    const bool mate_male = m.type == DovetailType::Male;
+    const double loss = mate_male
+                            ? (m.depth > 0 ? depth_clearance_loss(d.depth, m.depth, d.angle, n) : 0)
+                            : depth_clearance_loss(m.depth, d.depth, d.angle, n);
+    const std::string depths =
+        loss > 0 ? fmt::format(" {} {} for the male {} deeper than the female",
+                               mate_male ? '+' : '-', show(loss), show(std::abs(m.depth - d.depth)))
+                 : "";
+    if (mate_male) {
       // The female's mouth must be the male's root plus the clearance.
-      d.width = mate_bottom + m.clearance;
+      d.width = mate_bottom + m.clearance + loss;
       d.width_at = WidthAt::Top;
       d.mate_derivation = fmt::format(
-          "mate: male read {} over {} pins -> root width {}; mouth = root + clearance {} = {}",
-          show(m.reading), show(m.pin_diameter), show(mate_bottom), show(m.clearance),
+          "mate: male read {} over {} pins -> root width {}; mouth = root + clearance {}{} = {}",
+          show(m.reading), show(m.pin_diameter), show(mate_bottom), show(m.clearance), depths,
           show(d.width));
     } else {
       const double mouth =
           width_top_from_bottom(DovetailType::Female, mate_bottom, m.depth, d.angle, n);
-      d.width = mouth - m.clearance;
+      d.width = mouth - m.clearance - loss;
       d.width_at = WidthAt::Bottom;
       d.mate_derivation = fmt::format(
           "mate: female read {} between {} pins, depth {} -> floor width {}, mouth {}; "
-          "root = mouth - clearance {} = {}",
+          "root = mouth - clearance {}{} = {}",
           show(m.reading), show(m.pin_diameter), show(m.depth), show(mate_bottom), show(mouth),
-          show(m.clearance), show(d.width));
+          show(m.clearance), depths, show(d.width));
     }
     if (d.width <= 0) t.fail("mate", "the measured mate leaves no width for this part");
   }
@@ -560,7 +571,8 @@ class JobReader {
   }
 
   std::vector<std::string> pin_problems_for(const DovetailSection& section, double corner_radius) {
-    return pin_problems(section, job_.gauge->pin_diameter, corner_radius, job_.units);
+    return pin_problems(section, job_.gauge->pin_diameter, corner_radius, job_.units,
+                        stock_faces(job_));
   }
 
   std::string file_;

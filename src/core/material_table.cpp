@@ -2,6 +2,7 @@
 #include <cassert>
 #include <cctype>
 #include <map>
+#include <set>
 
 #include <fmt/format.h>
 
@@ -80,11 +81,16 @@ class MaterialReader {
                   const std::string& owner) {
     const auto match = material_match_key(name);
     if (match.empty()) t.fail(key, "\"" + name + "\" has no letters or digits to match");
-    auto [it, inserted] = owners_.emplace(match, owner);
-    if (!inserted && it->second != owner)
-      t.fail(key, fmt::format("\"{}\" would match both \"{}\" and \"{}\"; give each name to one "
-                              "material",
-                              name, it->second, owner));
+    // The same words in another order match too (match_material, step 2).
+    std::string words;
+    for (const auto& w : material_name_words(name)) words += w + ' ';
+    for (const auto& claimed : {match, fmt::format("words: {}", words)}) {
+      auto [it, inserted] = owners_.emplace(claimed, owner);
+      if (!inserted && it->second != owner)
+        t.fail(key, fmt::format("\"{}\" would match both \"{}\" and \"{}\"; give each name to "
+                                "one material",
+                                name, it->second, owner));
+    }
   }
 
   void read_material(const toml::table& table, int index) {
@@ -95,6 +101,7 @@ class MaterialReader {
     m.name = required_text(t, "name");
     m.aliases = t.texts("aliases").value_or(std::vector<std::string>{});
     for (const auto& alias : m.aliases) claim_name(t, "aliases", alias, m.key);
+    m.group = t.text("group").value_or("");
     m.hss_speed = speed(t, "hss_speed");
     m.carbide_speed = speed(t, "carbide_speed");
     auto loads = t.numbers("chip_load", diameters_.size(), 0, 1e3);
@@ -142,30 +149,190 @@ std::string material_match_key(std::string_view name) {
   return key;
 }
 
+namespace {
+
+std::string lower(std::string_view text) {
+  std::string out;
+  for (char c : text) out += static_cast<char>(std::tolower(static_cast<unsigned char>(c)));
+  return out;
+}
+
+bool all_digits(std::string_view text) {
+  return !text.empty() && std::all_of(text.begin(), text.end(), [](char c) {
+    return std::isdigit(static_cast<unsigned char>(c)) != 0;
+  });
+}
+
+// An aluminium temper: T and one to four digits ("t6", "t651", "t6511").
+bool is_temper(std::string_view word) {
+  return word.size() >= 2 && word.size() <= 5 && word[0] == 't' && all_digits(word.substr(1));
+}
+
+// Prefixes of standards' designations: "AISI 1018" is 1018.
+bool is_standard_prefix(std::string_view word) {
+  static const std::set<std::string_view> prefixes = {"aisi", "sae", "astm", "uns",  "en",
+                                                      "din",  "iso", "jis",  "grade"};
+  return prefixes.count(word) > 0;
+}
+
+// Words that say what kind of material a name is, not which one.
+bool is_kind_word(std::string_view word) {
+  static const std::set<std::string_view> kinds = {
+      "steel", "aluminium", "alloy",  "stainless", "tool",    "bronze", "brass",
+      "iron",  "cast",      "carbon", "annealed",  "wrought", "metal"};
+  return kinds.count(word) > 0;
+}
+
+// The words left to tell materials of one kind apart (step 3 of match_material).
+std::vector<std::string> core_words(const std::vector<std::string>& words) {
+  std::vector<std::string> out;
+  for (const auto& w : words)
+    if (!is_standard_prefix(w) && !is_kind_word(w)) out.push_back(w);
+  return out;
+}
+
+// Every name a material answers to: its key, then its aliases.
+std::vector<std::string_view> names_of(const Material& m) {
+  std::vector<std::string_view> names{m.key};
+  for (const auto& alias : m.aliases) names.push_back(alias);
+  return names;
+}
+
+// The single material in `found`, or nullptr for none or several.
+const Material* only(const std::set<const Material*>& found) {
+  return found.size() == 1 ? *found.begin() : nullptr;
+}
+
+std::size_t levenshtein(std::string_view a, std::string_view b) {
+  std::vector<std::size_t> row(b.size() + 1);
+  for (std::size_t j = 0; j <= b.size(); ++j) row[j] = j;
+  for (std::size_t i = 1; i <= a.size(); ++i) {
+    std::size_t diagonal = row[0];
+    row[0] = i;
+    for (std::size_t j = 1; j <= b.size(); ++j) {
+      const std::size_t above = row[j];
+      row[j] = std::min({row[j] + 1, row[j - 1] + 1, diagonal + (a[i - 1] == b[j - 1] ? 0 : 1)});
+      diagonal = above;
+    }
+  }
+  return row[b.size()];
+}
+
+}  // namespace
+
+std::vector<std::string> material_name_words(std::string_view name) {
+  std::vector<std::string> words;
+  std::string word;
+  const auto finish = [&] {
+    if (word.empty()) return;
+    if (word == "aluminum") word = "aluminium";
+    if (word == "gray") word = "grey";
+    // "6061t6": the alloy's four digits with its temper written on.
+    if (word.size() > 5 && all_digits(word.substr(0, 4)) && is_temper(word.substr(4)))
+      word.resize(4);
+    if (!is_temper(word)) words.push_back(word);
+    word.clear();
+  };
+  for (char c : lower(name)) {
+    if (std::isalnum(static_cast<unsigned char>(c)) != 0) {
+      word += c;
+    } else {
+      finish();
+    }
+  }
+  finish();
+  std::sort(words.begin(), words.end());
+  return words;
+}
+
 const Material* match_material(const MaterialTable& table, std::string_view name) {
   const auto wanted = material_match_key(name);
   if (wanted.empty()) return nullptr;
+  for (const auto& m : table.materials)
+    for (auto n : names_of(m))
+      if (material_match_key(n) == wanted) return &m;
+
+  const auto words = material_name_words(name);
+  if (words.empty()) return nullptr;
+  std::set<const Material*> same_words;
+  for (const auto& m : table.materials)
+    for (auto n : names_of(m))
+      if (material_name_words(n) == words) same_words.insert(&m);
+  if (!same_words.empty()) return only(same_words);
+
+  std::set<const Material*> same_core;
   for (const auto& m : table.materials) {
-    if (material_match_key(m.key) == wanted) return &m;
-    for (const auto& alias : m.aliases)
-      if (material_match_key(alias) == wanted) return &m;
+    // The kind words this material's own names use.
+    std::set<std::string> own;
+    for (auto n : names_of(m))
+      for (auto& w : material_name_words(n)) own.insert(w);
+    for (auto& w : material_name_words(m.name)) own.insert(w);
+    std::vector<std::string> core;
+    bool foreign_kind = false;
+    for (const auto& w : words) {
+      if (is_standard_prefix(w)) continue;
+      if (is_kind_word(w)) {
+        foreign_kind = foreign_kind || own.count(w) == 0;
+        continue;
+      }
+      core.push_back(w);
+    }
+    if (foreign_kind || core.empty()) continue;
+    for (auto n : names_of(m))
+      if (core_words(material_name_words(n)) == core) same_core.insert(&m);
   }
-  return nullptr;
+  return only(same_core);
+}
+
+std::vector<std::string> nearest_material_names(const MaterialTable& table, std::string_view name,
+                                                std::size_t count) {
+  struct Candidate {
+    std::size_t shared = 0;
+    std::size_t distance = 0;
+    std::string name;
+  };
+  const auto wanted_key = material_match_key(name);
+  const auto wanted_words = core_words(material_name_words(name));
+  std::vector<Candidate> candidates;
+  for (const auto& m : table.materials) {
+    for (auto n : names_of(m)) {
+      Candidate c;
+      c.name = std::string(n);
+      c.distance = levenshtein(wanted_key, material_match_key(n));
+      for (const auto& w : core_words(material_name_words(n)))
+        c.shared +=
+            static_cast<std::size_t>(std::count(wanted_words.begin(), wanted_words.end(), w));
+      candidates.push_back(std::move(c));
+    }
+  }
+  std::stable_sort(candidates.begin(), candidates.end(),
+                   [](const Candidate& a, const Candidate& b) {
+                     if (a.shared != b.shared) return a.shared > b.shared;
+                     return a.distance < b.distance;
+                   });
+  std::vector<std::string> out;
+  for (const auto& c : candidates) {
+    if (out.size() >= count) break;
+    out.push_back(c.name);
+  }
+  return out;
 }
 
 const Material& find_material(const MaterialTable& table, std::string_view name,
                               const SourcePlace& where) {
   if (const auto* found = match_material(table, name)) return *found;
-  std::string known;
-  for (const auto& m : table.materials) {
-    known += fmt::format("\n  {}", m.key);
-    for (const auto& alias : m.aliases) known += ", " + alias;
+  std::string nearest;
+  for (const auto& n : nearest_material_names(table, name, 5)) {
+    const auto* m = match_material(table, n);
+    nearest += fmt::format("\n  {}", n);
+    if (m && m->key != n) nearest += fmt::format(" ({})", m->key);
   }
   const auto what = name.empty() ? std::string("no material given")
                                  : fmt::format("unknown material \"{}\"", name);
-  throw InputError(
-      what + "; give one of these names (case, spaces and hyphens do not matter):" + known, where,
-      "part.material");
+  throw InputError(what + "; the nearest names it knows:" + nearest +
+                       "\n`dovetailor materials` lists every name (case, spaces, hyphens, word "
+                       "order\nand tempers like -T6 do not matter)",
+                   where, "part.material");
 }
 
 double chip_load_for(const Material& material, double tool_diameter) {

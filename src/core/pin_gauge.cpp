@@ -1,3 +1,4 @@
+#include <algorithm>
 #include <cmath>
 
 #include <fmt/format.h>
@@ -68,8 +69,47 @@ double largest_pin(double depth, double chamfer, double angle) {
   return 2 * (depth - chamfer) / (1 + std::cos(radians(angle)));
 }
 
+StockFaces stock_faces(const Job& job) { return {stock_left_x(job), stock_right_x(job)}; }
+
+namespace {
+
+// The pins of a female fit beside each other (or beside the square flank)
+// while the reading between them is positive (pin_gauge.hpp).
+double female_room(const DovetailSection& section, double pin_diameter) {
+  return reading_of(section, pin_diameter).value;
+}
+
+// How far the contact of a pin with a male's shelf, under its centre, lies
+// inside the stock face on that side (negative: beyond it).
+double shelf_room(const DovetailSection& section, Side side, double pin_diameter,
+                  const StockFaces& stock) {
+  const double x = place_pin(section, side, pin_diameter).center.x;
+  return side == Side::Left ? x - stock.left : stock.right - x;
+}
+
+}  // namespace
+
+double largest_usable_pin(const DovetailSection& section, const std::optional<StockFaces>& stock) {
+  double largest = largest_pin(section.depth, section.chamfer, section.angle);
+  const double k = pin_constant(section.angle);
+  if (section.type == DovetailType::Female) {
+    // W_bottom - n (D/2) k > 0.
+    largest = std::min(largest, 2 * section.width_bottom() / (section.angled_flanks() * k));
+  } else if (stock) {
+    // (D/2) cot(a/2) < shelf width on each angled side.
+    for (Side side : {Side::Left, Side::Right}) {
+      const Flank& f = section.flank(side);
+      if (!f.angled) continue;
+      const double shelf = side == Side::Left ? f.base.x - stock->left : stock->right - f.base.x;
+      largest = std::min(largest, 2 * shelf / cot_deg(section.angle / 2));
+    }
+  }
+  return largest;
+}
+
 std::vector<std::string> pin_problems(const DovetailSection& section, double pin_diameter,
-                                      double corner_radius, Units units) {
+                                      double corner_radius, Units units,
+                                      const std::optional<StockFaces>& stock) {
   std::vector<std::string> problems;
   const auto show = [&](double mm) { return length_text(mm, units); };
   const double usable = section.depth - section.chamfer;
@@ -88,6 +128,29 @@ std::vector<std::string> pin_problems(const DovetailSection& section, double pin
         "the fillet and read wrong; use a pin larger than {}",
         show(pin_diameter), show(corner_radius), show(2 * corner_radius)));
   }
+  if (section.type == DovetailType::Female && female_room(section, pin_diameter) <= 0) {
+    const bool two = section.angled_flanks() == 2;
+    problems.push_back(fmt::format(
+        "{} pins do not fit on the {} floor: {} (the reading between them would be {}); use a "
+        "pin smaller than {}",
+        show(pin_diameter), show(section.width_bottom()),
+        two ? "two of them overlap or touch, their centres less than one diameter apart"
+            : "one in the corner reaches the square flank",
+        show(female_room(section, pin_diameter)), show(largest_usable_pin(section, stock))));
+  }
+  if (section.type == DovetailType::Male && stock) {
+    for (Side side : {Side::Left, Side::Right}) {
+      if (!section.flank(side).angled) continue;
+      const double room = shelf_room(section, side, pin_diameter, *stock);
+      if (room > 0) continue;
+      problems.push_back(fmt::format(
+          "a {} pin in the {} corner cannot rest on the shelf: its contact with the shelf, "
+          "under its centre, lies at or beyond the stock face (by {}); use a pin smaller "
+          "than {}",
+          show(pin_diameter), side == Side::Left ? "left" : "right", show(-room),
+          show(largest_usable_pin(section, stock))));
+    }
+  }
   return problems;
 }
 
@@ -105,11 +168,11 @@ std::vector<double> common_pin_sizes(Units units) {
 }
 
 std::vector<PinAdvice> advise_pins(const DovetailSection& section, double corner_radius,
-                                   Units units) {
+                                   Units units, const std::optional<StockFaces>& stock) {
   std::vector<PinAdvice> advice;
   const double usable = section.depth - section.chamfer;
   for (double d : common_pin_sizes(units)) {
-    if (!pin_problems(section, d, corner_radius, units).empty()) continue;
+    if (!pin_problems(section, d, corner_radius, units, stock).empty()) continue;
     const double h = contact_height(d, section.angle);
     advice.push_back({d, h, h >= usable / 3 && h <= 2 * usable / 3});
   }

@@ -129,8 +129,8 @@ void check_job(const PlanContext& ctx) {
   }
   check_cutter_fits(ctx);
   if (job.gauge) {
-    const auto problems =
-        pin_problems(s, job.gauge->pin_diameter, ctx.cutter.corner_radius, job.units);
+    const auto problems = pin_problems(s, job.gauge->pin_diameter, ctx.cutter.corner_radius,
+                                       job.units, stock_faces(job));
     if (!problems.empty()) throw InputError(problems.front(), where, "gauge.pin_diameter");
   }
   // A CNC positions to the last written decimal; the band must hold a few.

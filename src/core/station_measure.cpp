@@ -21,7 +21,7 @@ double corner_radius(const Job& job) {
 
 double pin_for(const Job& job, const DovetailSection& section) {
   if (job.gauge) return job.gauge->pin_diameter;
-  const auto advice = advise_pins(section, corner_radius(job), job.units);
+  const auto advice = advise_pins(section, corner_radius(job), job.units, stock_faces(job));
   for (const PinAdvice& a : advice)
     if (a.middle_third) return a.diameter;
   if (!advice.empty()) return advice.front().diameter;
