@@ -20,6 +20,7 @@ int run_cli(int argc, const char* const* argv) {
   app.formatter(std::make_shared<HelpFormatter>());
   app.require_subcommand(1);
   app.set_version_flag("--version", "dovetailor 0.1.0");
+  setup_new(app);
   setup_pins(app);
   setup_fit(app);
   setup_plan(app);

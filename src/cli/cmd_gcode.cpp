@@ -69,12 +69,9 @@ void run_gcode(const GcodeOptions& o) {
   const Plan p = plan(job);
   const std::string program =
       write_program(p, post, {.date = today(), .coolant = parse_coolant(o.coolant)});
-  if (o.output.empty()) {
-    fmt::print("{}", program);
-  } else {
-    refuse_job_file(o.output, o.job_file);
-    write_file_atomically(o.output, program, o.force);
-  }
+  const std::string output = o.output.empty() ? "-" : o.output;
+  if (!is_standard_output(output)) refuse_job_file(output, o.job_file);
+  write_output(output, program, o.force);
   print_plan_warnings(p);
 }
 
@@ -87,7 +84,8 @@ void setup_gcode(CLI::App& app) {
   cmd->add_option("job", o->job_file, "Job file (TOML)")->required();
   cmd->add_option("--post", o->post,
                   "Post name (in the post folder) or path of a post file; default rs274ngc-full");
-  cmd->add_option("-o,--output", o->output, "Write the program to this file (default: stdout)");
+  cmd->add_option("-o,--output", o->output,
+                  "Write the program to this file (default, or -: stdout)");
   cmd->add_option("--coolant", o->coolant, "flood (default), mist or off");
   cmd->add_flag("--force", o->force, "Replace the output file if it exists");
   cmd->callback([o] { run_gcode(*o); });

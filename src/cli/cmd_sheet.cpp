@@ -28,14 +28,19 @@ struct SheetCommandOptions {
 };
 
 void run_sheet(const SheetCommandOptions& o) {
-  const std::string ext = output_extension(o.output);
+  // "-" is the text sheet on standard output; a PDF needs a file (binary
+  // data on a terminal is garbage, and a pipe can take the text).
+  const std::string ext = is_standard_output(o.output) ? ".txt" : output_extension(o.output);
   if (ext != ".txt" && ext != ".pdf")
-    throw InputError("give an output file ending in .txt (plain text) or .pdf", {o.output}, "-o");
+    throw InputError(
+        "give an output file ending in .txt (plain text) or .pdf, or - for the text "
+        "on standard output",
+        {o.output}, "-o");
   const Job job = read_job(read_text_file(o.job_file), o.job_file);
   const Plan p = plan(job);
   const Sheet sheet = build_sheet(p, {.date = o.date.empty() ? today() : o.date});
   if (ext == ".txt") {
-    write_file_atomically(o.output, sheet_text(sheet), o.force);
+    write_output(o.output, sheet_text(sheet), o.force);
   } else {
     const Drawing drawing = build_drawing(p);
     write_file_atomically(
@@ -51,7 +56,8 @@ void setup_sheet(CLI::App& app) {
   auto* cmd = app.add_subcommand(
       "sheet", "The pass sheet for the machine: settings, dials, checkpoints (.txt or .pdf).");
   cmd->add_option("job", o->job_file, "Job file (TOML)")->required();
-  cmd->add_option("-o,--output", o->output, "Output file; the extension picks the format")
+  cmd->add_option("-o,--output", o->output,
+                  "Output file: .txt or .pdf by the extension; - for the text on stdout")
       ->required();
   cmd->add_option("--date", o->date, "Date printed in the title block (default: today)");
   cmd->add_option("--paper", o->paper, "Paper for a PDF: letter (default) or a4")

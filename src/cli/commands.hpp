@@ -7,6 +7,7 @@ namespace dovetailor::cli {
 // Each subcommand lives in its own file: an options struct, a setup_...()
 // that binds the options to a CLI11 subcommand and registers run_... as its
 // callback. Errors for the user are thrown as InputError and caught in main.
+void setup_new(CLI::App& app);
 void setup_pins(CLI::App& app);
 void setup_fit(CLI::App& app);
 void setup_plan(CLI::App& app);

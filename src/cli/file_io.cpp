@@ -93,4 +93,15 @@ void write_file_atomically(const std::string& path, const std::string& content, 
   file.commit();
 }
 
+void write_output(const std::string& path, const std::string& content, bool force) {
+  if (!is_standard_output(path)) {
+    write_file_atomically(path, content, force);
+    return;
+  }
+  if (std::fwrite(content.data(), 1, content.size(), stdout) != content.size() ||
+      std::fflush(stdout) != 0)
+    throw InputError(std::string("writing to standard output failed: ") + std::strerror(errno), {},
+                     "-o");
+}
+
 }  // namespace dovetailor::cli

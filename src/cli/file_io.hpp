@@ -33,10 +33,18 @@ class AtomicFile {
   bool committed_ = false;
 };
 
-// AtomicFile for a whole text at once.
-
 // The output file's extension in lower case (".pdf"), which picks the format.
 std::string output_extension(const std::string& path);
+
+// AtomicFile for a whole text at once.
 void write_file_atomically(const std::string& path, const std::string& content, bool force);
+
+// True for the output name "-": standard output instead of a file.
+inline bool is_standard_output(const std::string& path) { return path == "-"; }
+
+// `content` to standard output when `path` is "-", else to the file through
+// AtomicFile. A failed write to standard output (a closed pipe, a full disk)
+// is an InputError, so the exit code tells the shell.
+void write_output(const std::string& path, const std::string& content, bool force);
 
 }  // namespace dovetailor::cli

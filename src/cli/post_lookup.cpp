@@ -9,14 +9,34 @@
 
 namespace dovetailor::cli {
 
+namespace {
+
+// True when `path` lies inside `folder` (both absolute, compared by parts).
+bool is_inside(const std::filesystem::path& path, const std::filesystem::path& folder) {
+  auto p = path.begin();
+  for (auto f = folder.begin(); f != folder.end(); ++f, ++p) {
+    if (f->empty()) continue;  // a trailing separator
+    if (p == path.end() || *p != *f) return false;
+  }
+  return true;
+}
+
+}  // namespace
+
 std::vector<std::string> post_folders() {
   namespace fs = std::filesystem;
   if (const char* dir = std::getenv("DOVETAILOR_POST_DIR"); dir && *dir) return {dir};
   std::vector<std::string> folders;
   std::error_code ec;
   const fs::path exe = fs::read_symlink("/proc/self/exe", ec);
-  if (!ec) folders.push_back((exe.parent_path() / ".." / "share" / "dovetailor" / "post").string());
-  folders.push_back(DOVETAILOR_POST_DIR_DEFAULT);
+  if (ec) return {DOVETAILOR_SOURCE_POST_DIR};
+  folders.push_back(
+      (exe.parent_path() / DOVETAILOR_INSTALLED_POST_DIR).lexically_normal().string());
+  // Only a program still in the build folder reads the source tree's posts:
+  // an installed copy must find its own, or say it cannot.
+  const fs::path build_dir = fs::weakly_canonical(DOVETAILOR_BUILD_DIR, ec);
+  if (!ec && is_inside(fs::weakly_canonical(exe, ec), build_dir))
+    folders.push_back(DOVETAILOR_SOURCE_POST_DIR);
   return folders;
 }
 
