@@ -73,6 +73,23 @@ TEST(trim, within_the_tolerance_is_on_size) {
   EXPECT_EQ(t.verdict, TrimVerdict::OnSize);
 }
 
+// A part on size inside the band but off its middle: "nothing to cut" is
+// the whole advice, with no wear-offset change or corrective passes beside
+// it (common practice, no source: a part in tolerance is left alone).
+TEST(trim, on_size_offers_no_correction) {
+  const Plan p = sample_plan("fixture-slide-female");
+  const double expected = p.checkpoints[2].expected.value;
+  const Trim t = trim(p, {.checkpoint = 2, .reading = expected - inch(0.0002)});
+  ASSERT_EQ(t.verdict, TrimVerdict::OnSize);
+  for (SizingStyle style :
+       {SizingStyle::Plain, SizingStyle::CutterCompensation, SizingStyle::Parameters}) {
+    const std::string text = flat(format_trim(p, t, style));
+    EXPECT_NE(text.find("Nothing to cut"), std::string::npos) << text;
+    EXPECT_EQ(text.find("Or in the full program"), std::string::npos) << text;
+    EXPECT_EQ(text.find("corrective passes"), std::string::npos) << text;
+  }
+}
+
 TEST(trim, stock_left_after_finishing_gives_passes_and_the_offset_change) {
   const Plan p = sample_plan("fixture-slide-female");
   // 0.0010 in below the expected reading between pins: 0.0005 in per flank.

@@ -134,7 +134,9 @@ std::string format_trim(const Plan& plan, const Trim& t, SizingStyle style) {
       out += wrapped(line);
     }
   }
-  if (t.verdict != TrimVerdict::OverCut) {
+  // On size there is nothing to correct: no offset change is offered beside
+  // "nothing to cut".
+  if (t.verdict == TrimVerdict::Trim) {
     const bool last = c.remaining_per_flank <= 0;
     const std::string then =
         last ? fmt::format("then run the program again from pass {} (the first finishing pass)",
