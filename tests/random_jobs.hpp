@@ -16,7 +16,9 @@
 #include <random>
 
 #include <dovetailor/dovetail_section.hpp>
+#include <dovetailor/error.hpp>
 #include <dovetailor/job.hpp>
+#include <dovetailor/planner.hpp>
 
 namespace dovetailor::testing {
 
@@ -141,6 +143,16 @@ inline Job random_job(std::mt19937_64& rng, const RandomJobOptions& options = {}
   job.machine.kind = options.machine.value_or(job.machine.kind);
   if (options.cutter_off_angle) job.tools[1].angle += between(-0.1, 0.1);
   return job;
+}
+
+// The plan of a random job, or nothing when the planner refuses it (refused
+// jobs are the planner tests' business).
+inline std::optional<Plan> plan_if_accepted(const Job& job) {
+  try {
+    return plan(job);
+  } catch (const InputError&) {
+    return std::nullopt;
+  }
 }
 
 }  // namespace dovetailor::testing
