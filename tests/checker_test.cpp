@@ -290,6 +290,16 @@ TEST(checker, a_program_without_its_roughing_overloads_the_dovetail_cutter_at_it
 
 // The same program for the male rail, kept as a file for the command-line
 // test (cli.check_no_roughing_fails: exit code 1, FAIL at line 7).
+// A reading a hair under its target rounds to zero at the report's
+// decimals: the error column shows +0.000, never -0.000 (the no-roughing
+// program reads 41.647 mm, a few nanometres under the target).
+TEST(checker, the_report_never_prints_a_negative_zero) {
+  const std::string text = format_check_report(check_text(
+      read_source_file("tests/programs/no-roughing-male.ngc"), sample("stop-block-male.toml")));
+  EXPECT_EQ(text.find("-0.000"), std::string::npos) << text;
+  EXPECT_NE(text.find("+0.000"), std::string::npos) << text;
+}
+
 TEST(checker, no_roughing_program_file_is_current) {
   testing::expect_golden("tests/programs/no-roughing-male.ngc",
                          program_from_plan(without_roughing(plan(sample("stop-block-male.toml")))));

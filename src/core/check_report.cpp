@@ -1,4 +1,5 @@
 #include <algorithm>
+#include <cmath>
 
 #include <fmt/format.h>
 
@@ -133,6 +134,15 @@ std::string_view end_words(EndKind end) {
   return "?";
 }
 
+// A signed figure at dp decimals that never prints "-0.000": a value that
+// rounds to zero is shown as +0.000.
+std::string signed_fixed(double v, int dp) {
+  const double scale = std::pow(10.0, dp);
+  double rounded = std::round(v * scale) / scale;
+  if (rounded == 0) rounded = 0;  // -0.0 too
+  return fmt::format("{:+.{}f}", rounded, dp);
+}
+
 std::string_view method_words(ReadingMethod m) {
   switch (m) {
     case ReadingMethod::OverPins:
@@ -236,28 +246,27 @@ std::string format_check_report(const CheckReport& r) {
     const StationResult& s0 = r.stations.front();
     out += "\n";
     para(out,
-         fmt::format("Readings ({}), {} of {} {}; width tolerance {:+.{}f} to {:+.{}f} {}, the "
+         fmt::format("Readings ({}), {} of {} {}; width tolerance {} to {} {}, the "
                      "target at its middle",
                      sym, method_words(s0.target_reading.method),
-                     num(s0.target_reading.pin_diameter), sym, from_mm(r.tolerance.lower, u), dp,
-                     from_mm(r.tolerance.upper, u), dp, sym),
+                     num(s0.target_reading.pin_diameter), sym,
+                     signed_fixed(from_mm(r.tolerance.lower, u), dp),
+                     signed_fixed(from_mm(r.tolerance.upper, u), dp), sym),
          "");
     out += fmt::format("  {:>9} {:>10} {:>10} {:>9}\n", "y", "reading", "target", "error");
     for (const StationResult& s : r.stations) {
       const auto& m = s.measured;
       const std::string reading = m.reading ? num(m.reading->value) : "-";
       const std::string error =
-          m.reading
-              ? fmt::format("{:+.{}f}", from_mm(m.reading->value - s.target_reading.value, u), dp)
-              : "-";
+          m.reading ? signed_fixed(from_mm(m.reading->value - s.target_reading.value, u), dp) : "-";
       out += fmt::format("  {:>9} {:>10} {:>10} {:>9}{}\n", num(s.y), reading,
                          num(s.target_reading.value), error,
                          s.reading_in_tolerance ? "" : "  out of tolerance");
     }
     if (r.stations.size() > 1)
       para(out,
-           fmt::format("reading along the slide: spread {} {}, taper {:+.6f} {} per {} of length",
-                       num(r.reading_spread), sym, r.reading_taper, sym, sym),
+           fmt::format("reading along the slide: spread {} {}, taper {} {} per {} of length",
+                       num(r.reading_spread), sym, signed_fixed(r.reading_taper, 6), sym, sym),
            "  ");
 
     out += fmt::format("\nSection shape ({}; flank angles in degrees)\n", sym);
