@@ -5,7 +5,6 @@
 // state the feeds of the passes it describes, and no other.
 
 #include <cmath>
-#include <regex>
 #include <set>
 #include <string>
 #include <vector>
@@ -25,14 +24,27 @@ inline std::string feed_figure(double mm_per_min, Units units) {
 // Every figure in `text` written as a feed: "3.1 in/min", and both ends of
 // "1.6 to 3.1 in/min".
 inline std::set<std::string> stated_feeds(const std::string& text) {
-  static const std::regex feed(
-      R"(([0-9]+(?:\.[0-9]+)?)(?: to ([0-9]+(?:\.[0-9]+)?))? (?:in|mm)/min)");
+  // Scanned by hand: std::regex trips GCC 12's -Wmaybe-uninitialized in the
+  // sanitizer build (a false warning inside libstdc++).
+  const auto is_figure = [](char c) { return (c >= '0' && c <= '9') || c == '.'; };
+  // The figure that ends just before `end`, or "" when none does.
+  const auto figure_before = [&](std::size_t end) {
+    std::size_t begin = end;
+    while (begin > 0 && is_figure(text[begin - 1])) --begin;
+    return text.substr(begin, end - begin);
+  };
   std::set<std::string> out;
-  for (auto it = std::sregex_iterator(text.begin(), text.end(), feed); it != std::sregex_iterator();
-       ++it) {
-    out.insert((*it)[1].str());
-    if ((*it)[2].matched) out.insert((*it)[2].str());
-  }
+  for (const std::string unit : {" in/min", " mm/min"})
+    for (std::size_t at = text.find(unit); at != std::string::npos; at = text.find(unit, at + 1)) {
+      const std::string last = figure_before(at);
+      if (last.empty() || last.front() == '.') continue;
+      out.insert(last);
+      const std::size_t to = at - last.size();
+      if (to >= 4 && text.compare(to - 4, 4, " to ") == 0) {
+        const std::string first = figure_before(to - 4);
+        if (!first.empty() && first.front() != '.') out.insert(first);
+      }
+    }
   return out;
 }
 

@@ -1,7 +1,7 @@
 #include <algorithm>
+#include <cctype>
 #include <cmath>
 #include <random>
-#include <regex>
 #include <sstream>
 #include <vector>
 
@@ -55,7 +55,13 @@ std::string header_text(const std::string& program) {
   std::string out;
   for (std::string line : lines_of(program)) {
     if (line.find("modal set-up") != std::string::npos) break;
-    line = std::regex_replace(line, std::regex(R"(^N[0-9]+ )"), "");
+    // Without its block number "N123 ".
+    if (line.starts_with("N")) {
+      std::size_t digits = 1;
+      while (digits < line.size() && std::isdigit(static_cast<unsigned char>(line[digits])))
+        ++digits;
+      if (digits > 1 && digits < line.size() && line[digits] == ' ') line = line.substr(digits + 1);
+    }
     if (line.starts_with("(") && line.ends_with(")"))
       line = line.substr(1, line.size() - 2);
     else if (line.starts_with("; "))
@@ -71,12 +77,20 @@ std::string header_text(const std::string& program) {
 std::string header_tool(const std::string& header, int number) {
   const auto at = header.find(fmt::format(" T{} ", number));
   if (at == std::string::npos) return {};
-  std::smatch next;
   const std::string rest = header.substr(at + 1);
-  if (std::regex_search(rest.begin() + 1, rest.end(), next,
-                        std::regex(R"( T[0-9]+ | coolant:| no tool length)")))
-    return rest.substr(0, static_cast<std::size_t>(next.position(0)) + 1);
-  return rest;
+  // The next " T<digits> ", " coolant:" or " no tool length" ends it.
+  std::size_t end = std::string::npos;
+  for (const char* word : {" coolant:", " no tool length"}) end = std::min(end, rest.find(word, 1));
+  for (std::size_t t = rest.find(" T", 1); t != std::string::npos && t < end;
+       t = rest.find(" T", t + 1)) {
+    std::size_t d = t + 2;
+    while (d < rest.size() && std::isdigit(static_cast<unsigned char>(rest[d]))) ++d;
+    if (d > t + 2 && d < rest.size() && rest[d] == ' ') {
+      end = t;
+      break;
+    }
+  }
+  return end == std::string::npos ? rest : rest.substr(0, end);
 }
 
 // Issue 12, item 11: the program shows the plan's warnings in its header,
