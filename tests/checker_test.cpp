@@ -321,7 +321,8 @@ Job sharp_cutter_job() {
 // table in the README): (32.75 - 26.5 - 0.2) / 4 = 1.5125 mm.
 TEST(checker, the_radial_limit_is_the_planners_largest_step) {
   double largest = 0;
-  for (const Pass* pass : all_passes(plan(sharp_cutter_job())))
+  const Plan p = plan(sharp_cutter_job());  // outlives the pass pointers
+  for (const Pass* pass : all_passes(p))
     if (pass->tool == 4) largest = std::max(largest, pass->radial_step);
   EXPECT_NEAR(largest, 1.5125, 1e-9);
 }
