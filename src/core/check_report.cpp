@@ -1,9 +1,9 @@
 #include <algorithm>
-#include <cmath>
 
 #include <fmt/format.h>
 
 #include <dovetailor/check_report.hpp>
+#include <dovetailor/length_text.hpp>
 #include <dovetailor/text_wrap.hpp>
 
 namespace dovetailor {
@@ -134,15 +134,6 @@ std::string_view end_words(EndKind end) {
   return "?";
 }
 
-// A signed figure at dp decimals that never prints "-0.000": a value that
-// rounds to zero is shown as +0.000.
-std::string signed_fixed(double v, int dp) {
-  const double scale = std::pow(10.0, dp);
-  double rounded = std::round(v * scale) / scale;
-  if (rounded == 0) rounded = 0;  // -0.0 too
-  return fmt::format("{:+.{}f}", rounded, dp);
-}
-
 std::string_view method_words(ReadingMethod m) {
   switch (m) {
     case ReadingMethod::OverPins:
@@ -250,15 +241,16 @@ std::string format_check_report(const CheckReport& r) {
                      "target at its middle",
                      sym, method_words(s0.target_reading.method),
                      num(s0.target_reading.pin_diameter), sym,
-                     signed_fixed(from_mm(r.tolerance.lower, u), dp),
-                     signed_fixed(from_mm(r.tolerance.upper, u), dp), sym),
+                     signed_figure(from_mm(r.tolerance.lower, u), dp),
+                     signed_figure(from_mm(r.tolerance.upper, u), dp), sym),
          "");
     out += fmt::format("  {:>9} {:>10} {:>10} {:>9}\n", "y", "reading", "target", "error");
     for (const StationResult& s : r.stations) {
       const auto& m = s.measured;
       const std::string reading = m.reading ? num(m.reading->value) : "-";
       const std::string error =
-          m.reading ? signed_fixed(from_mm(m.reading->value - s.target_reading.value, u), dp) : "-";
+          m.reading ? signed_figure(from_mm(m.reading->value - s.target_reading.value, u), dp)
+                    : "-";
       out += fmt::format("  {:>9} {:>10} {:>10} {:>9}{}\n", num(s.y), reading,
                          num(s.target_reading.value), error,
                          s.reading_in_tolerance ? "" : "  out of tolerance");
@@ -266,7 +258,7 @@ std::string format_check_report(const CheckReport& r) {
     if (r.stations.size() > 1)
       para(out,
            fmt::format("reading along the slide: spread {} {}, taper {} {} per {} of length",
-                       num(r.reading_spread), sym, signed_fixed(r.reading_taper, 6), sym, sym),
+                       num(r.reading_spread), sym, signed_figure(r.reading_taper, 6), sym, sym),
            "  ");
 
     out += fmt::format("\nSection shape ({}; flank angles in degrees)\n", sym);

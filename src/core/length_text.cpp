@@ -16,9 +16,15 @@ std::string length_text(double mm, Units units) {
   return length_number(mm, units) + " " + std::string(unit_symbol(units));
 }
 
+std::string signed_figure(double value, int decimals) {
+  std::string s = fmt::format("{:.{}f}", value, decimals);
+  if (s.starts_with("-") && s.find_first_not_of("-0.") == std::string::npos) s.erase(0, 1);
+  return s.starts_with("-") ? s : "+" + s;
+}
+
 std::string signed_length_text(double mm, Units units) {
-  const std::string s = length_number(mm, units);
-  return (s.starts_with("-") ? s : "+" + s) + " " + std::string(unit_symbol(units));
+  return signed_figure(from_mm(mm, units), length_decimals(units)) + " " +
+         std::string(unit_symbol(units));
 }
 
 double length_value(double mm, Units units) {
