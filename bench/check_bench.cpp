@@ -23,11 +23,11 @@
 #include <benchmark/benchmark.h>
 #include <fmt/format.h>
 
-#include <dovetailor/checker.hpp>
-#include <dovetailor/gcode_writer.hpp>
-#include <dovetailor/job_reader.hpp>
-#include <dovetailor/planner.hpp>
-#include <dovetailor/post.hpp>
+#include <dovetailor/check/checker.hpp>
+#include <dovetailor/gcode/gcode_writer.hpp>
+#include <dovetailor/input/job_reader.hpp>
+#include <dovetailor/plan/planner.hpp>
+#include <dovetailor/shop/post.hpp>
 
 namespace {
 

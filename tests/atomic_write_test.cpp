@@ -12,7 +12,7 @@
 
 #include <gtest/gtest.h>
 
-#include <dovetailor/error.hpp>
+#include <dovetailor/base/error.hpp>
 
 #include "../src/cli/file_io.hpp"
 

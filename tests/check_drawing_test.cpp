@@ -6,11 +6,11 @@
 
 #include <gtest/gtest.h>
 
-#include <dovetailor/check_drawing.hpp>
-#include <dovetailor/checker.hpp>
-#include <dovetailor/drawing_scene.hpp>
-#include <dovetailor/job_reader.hpp>
-#include <dovetailor/length_text.hpp>
+#include <dovetailor/base/length_text.hpp>
+#include <dovetailor/check/checker.hpp>
+#include <dovetailor/drawing/check_drawing.hpp>
+#include <dovetailor/drawing/drawing_scene.hpp>
+#include <dovetailor/input/job_reader.hpp>
 
 #include "test_support.hpp"
 

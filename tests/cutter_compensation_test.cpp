@@ -3,7 +3,7 @@
 
 #include <gtest/gtest.h>
 
-#include <dovetailor/rs274_interpreter.hpp>
+#include <dovetailor/rs274/rs274_interpreter.hpp>
 
 #include "rs274_test_support.hpp"
 #include "test_support.hpp"

@@ -2,8 +2,8 @@
 
 #include <gtest/gtest.h>
 
-#include <dovetailor/cutting_data.hpp>
-#include <dovetailor/job_reader.hpp>
+#include <dovetailor/input/job_reader.hpp>
+#include <dovetailor/shop/cutting_data.hpp>
 
 #include "test_support.hpp"
 

@@ -3,8 +3,8 @@
 
 #include <gtest/gtest.h>
 
-#include <dovetailor/cutting_data.hpp>
-#include <dovetailor/deflection.hpp>
+#include <dovetailor/shop/cutting_data.hpp>
+#include <dovetailor/shop/deflection.hpp>
 
 namespace dovetailor {
 namespace {

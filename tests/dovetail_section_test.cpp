@@ -2,7 +2,7 @@
 
 #include <gtest/gtest.h>
 
-#include <dovetailor/dovetail_section.hpp>
+#include <dovetailor/geometry/dovetail_section.hpp>
 
 namespace dovetailor {
 namespace {

@@ -6,12 +6,12 @@
 
 #include <gtest/gtest.h>
 
-#include <dovetailor/cairo_render.hpp>
-#include <dovetailor/drawing.hpp>
-#include <dovetailor/drawing_scene.hpp>
-#include <dovetailor/job_reader.hpp>
-#include <dovetailor/planner.hpp>
-#include <dovetailor/sheet.hpp>
+#include <dovetailor/drawing/drawing.hpp>
+#include <dovetailor/drawing/drawing_scene.hpp>
+#include <dovetailor/input/job_reader.hpp>
+#include <dovetailor/plan/planner.hpp>
+#include <dovetailor/render/cairo_render.hpp>
+#include <dovetailor/report/sheet.hpp>
 
 #include "test_support.hpp"
 

@@ -11,7 +11,7 @@
 
 #include <fmt/format.h>
 
-#include <dovetailor/plan.hpp>
+#include <dovetailor/plan/plan.hpp>
 
 namespace dovetailor::testing {
 

@@ -2,7 +2,7 @@
 
 #include <gtest/gtest.h>
 
-#include <dovetailor/fit.hpp>
+#include <dovetailor/geometry/fit.hpp>
 
 namespace dovetailor {
 namespace {

@@ -4,8 +4,8 @@
 
 #include <gtest/gtest.h>
 
-#include <dovetailor/gcode_block.hpp>
-#include <dovetailor/post.hpp>
+#include <dovetailor/gcode/gcode_block.hpp>
+#include <dovetailor/shop/post.hpp>
 
 #include "test_support.hpp"
 

@@ -11,10 +11,11 @@
 
 #include <gtest/gtest.h>
 
-#include <dovetailor/checker.hpp>
-#include <dovetailor/gcode_writer.hpp>
-#include <dovetailor/job_reader.hpp>
-#include <dovetailor/planner.hpp>
+#include <dovetailor/check/checker.hpp>
+#include <dovetailor/gcode/gcode_writer.hpp>
+#include <dovetailor/input/job_reader.hpp>
+#include <dovetailor/plan/planner.hpp>
+#include <dovetailor/report/check_report.hpp>
 
 #include "random_jobs.hpp"
 #include "tapered_flank.hpp"

@@ -28,10 +28,10 @@
 
 #include <nlohmann/json.hpp>
 
-#include <dovetailor/gcode_writer.hpp>
-#include <dovetailor/job_reader.hpp>
-#include <dovetailor/planner.hpp>
-#include <dovetailor/program_text.hpp>
+#include <dovetailor/gcode/gcode_writer.hpp>
+#include <dovetailor/gcode/program_text.hpp>
+#include <dovetailor/input/job_reader.hpp>
+#include <dovetailor/plan/planner.hpp>
 
 namespace {
 

@@ -8,9 +8,9 @@
 #include <fmt/format.h>
 #include <gtest/gtest.h>
 
-#include <dovetailor/gcode_writer.hpp>
-#include <dovetailor/job_reader.hpp>
-#include <dovetailor/planner.hpp>
+#include <dovetailor/gcode/gcode_writer.hpp>
+#include <dovetailor/input/job_reader.hpp>
+#include <dovetailor/plan/planner.hpp>
 
 #include "feed_text.hpp"
 #include "random_jobs.hpp"

@@ -3,8 +3,8 @@
 
 #include <gtest/gtest.h>
 
-#include <dovetailor/handwheel.hpp>
-#include <dovetailor/units.hpp>
+#include <dovetailor/base/units.hpp>
+#include <dovetailor/job/handwheel.hpp>
 
 namespace dovetailor {
 namespace {

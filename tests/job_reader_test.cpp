@@ -4,7 +4,7 @@
 
 #include <gtest/gtest.h>
 
-#include <dovetailor/job_reader.hpp>
+#include <dovetailor/input/job_reader.hpp>
 
 #include "test_support.hpp"
 

@@ -8,13 +8,14 @@
 
 #include <gtest/gtest.h>
 
-#include <dovetailor/checker.hpp>
-#include <dovetailor/dovetail_section.hpp>
-#include <dovetailor/fit.hpp>
-#include <dovetailor/gcode_writer.hpp>
-#include <dovetailor/job_reader.hpp>
-#include <dovetailor/job_template.hpp>
-#include <dovetailor/planner.hpp>
+#include <dovetailor/check/checker.hpp>
+#include <dovetailor/gcode/gcode_writer.hpp>
+#include <dovetailor/geometry/dovetail_section.hpp>
+#include <dovetailor/geometry/fit.hpp>
+#include <dovetailor/input/job_reader.hpp>
+#include <dovetailor/input/job_template.hpp>
+#include <dovetailor/plan/planner.hpp>
+#include <dovetailor/report/check_report.hpp>
 
 #include "test_support.hpp"
 

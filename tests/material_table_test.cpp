@@ -4,7 +4,7 @@
 
 #include <gtest/gtest.h>
 
-#include <dovetailor/material_table.hpp>
+#include <dovetailor/shop/material_table.hpp>
 
 #include "test_support.hpp"
 

@@ -2,7 +2,7 @@
 
 #include <gtest/gtest.h>
 
-#include <dovetailor/pin_gauge.hpp>
+#include <dovetailor/geometry/pin_gauge.hpp>
 
 namespace dovetailor {
 namespace {

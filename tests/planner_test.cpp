@@ -7,11 +7,11 @@
 
 #include <gtest/gtest.h>
 
-#include <dovetailor/deflection.hpp>
-#include <dovetailor/job_reader.hpp>
-#include <dovetailor/material_table.hpp>
-#include <dovetailor/plan_report.hpp>
-#include <dovetailor/planner.hpp>
+#include <dovetailor/input/job_reader.hpp>
+#include <dovetailor/plan/planner.hpp>
+#include <dovetailor/report/plan_report.hpp>
+#include <dovetailor/shop/deflection.hpp>
+#include <dovetailor/shop/material_table.hpp>
 
 #include "feed_text.hpp"
 #include "random_jobs.hpp"

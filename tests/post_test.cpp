@@ -3,7 +3,7 @@
 
 #include <gtest/gtest.h>
 
-#include <dovetailor/post.hpp>
+#include <dovetailor/shop/post.hpp>
 
 #include "test_support.hpp"
 

@@ -3,7 +3,7 @@
 
 #include <gtest/gtest.h>
 
-#include <dovetailor/program_text.hpp>
+#include <dovetailor/gcode/program_text.hpp>
 
 #include "test_support.hpp"
 

@@ -15,10 +15,10 @@
 #include <optional>
 #include <random>
 
-#include <dovetailor/dovetail_section.hpp>
-#include <dovetailor/error.hpp>
-#include <dovetailor/job.hpp>
-#include <dovetailor/planner.hpp>
+#include <dovetailor/base/error.hpp>
+#include <dovetailor/geometry/dovetail_section.hpp>
+#include <dovetailor/job/job.hpp>
+#include <dovetailor/plan/planner.hpp>
 
 namespace dovetailor::testing {
 

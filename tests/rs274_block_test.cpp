@@ -2,7 +2,7 @@
 
 #include <gtest/gtest.h>
 
-#include <dovetailor/rs274_block.hpp>
+#include <dovetailor/rs274/rs274_block.hpp>
 
 #include "test_support.hpp"
 

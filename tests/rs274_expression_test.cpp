@@ -3,7 +3,7 @@
 
 #include <gtest/gtest.h>
 
-#include <dovetailor/rs274_expression.hpp>
+#include <dovetailor/rs274/rs274_expression.hpp>
 
 #include "test_support.hpp"
 

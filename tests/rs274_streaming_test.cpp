@@ -3,8 +3,8 @@
 
 #include <gtest/gtest.h>
 
-#include <dovetailor/program_source.hpp>
-#include <dovetailor/rs274_interpreter.hpp>
+#include <dovetailor/rs274/program_source.hpp>
+#include <dovetailor/rs274/rs274_interpreter.hpp>
 
 #include "test_support.hpp"
 

@@ -6,8 +6,8 @@
 #include <variant>
 #include <vector>
 
-#include <dovetailor/program_source.hpp>
-#include <dovetailor/rs274_interpreter.hpp>
+#include <dovetailor/rs274/program_source.hpp>
+#include <dovetailor/rs274/rs274_interpreter.hpp>
 
 namespace dovetailor::testing {
 

@@ -2,7 +2,7 @@
 
 #include <gtest/gtest.h>
 
-#include <dovetailor/section_measure.hpp>
+#include <dovetailor/geometry/section_measure.hpp>
 
 namespace dovetailor {
 namespace {

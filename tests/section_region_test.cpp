@@ -5,7 +5,7 @@
 #include <geos_c.h>
 #include <gtest/gtest.h>
 
-#include <dovetailor/section_region.hpp>
+#include <dovetailor/geometry/section_region.hpp>
 
 namespace dovetailor {
 namespace {

@@ -4,11 +4,11 @@
 
 #include <gtest/gtest.h>
 
-#include <dovetailor/handwheel.hpp>
-#include <dovetailor/job_reader.hpp>
-#include <dovetailor/planner.hpp>
-#include <dovetailor/sheet.hpp>
-#include <dovetailor/sheet_text.hpp>
+#include <dovetailor/input/job_reader.hpp>
+#include <dovetailor/job/handwheel.hpp>
+#include <dovetailor/plan/planner.hpp>
+#include <dovetailor/report/sheet.hpp>
+#include <dovetailor/report/sheet_text.hpp>
 
 #include "feed_text.hpp"
 #include "random_jobs.hpp"

@@ -2,7 +2,7 @@
 
 #include <gtest/gtest.h>
 
-#include <dovetailor/swept_region.hpp>
+#include <dovetailor/geometry/swept_region.hpp>
 
 namespace dovetailor {
 namespace {

@@ -6,8 +6,8 @@
 #include <algorithm>
 #include <cmath>
 
-#include <dovetailor/dovetail_section.hpp>
-#include <dovetailor/job.hpp>
+#include <dovetailor/geometry/dovetail_section.hpp>
+#include <dovetailor/job/job.hpp>
 
 namespace dovetailor::testing {
 

@@ -7,7 +7,7 @@
 
 #include <gtest/gtest.h>
 
-#include <dovetailor/error.hpp>
+#include <dovetailor/base/error.hpp>
 
 namespace dovetailor::testing {
 

@@ -2,8 +2,8 @@
 
 #include <gtest/gtest.h>
 
-#include <dovetailor/deflection.hpp>
-#include <dovetailor/tool_body.hpp>
+#include <dovetailor/geometry/tool_body.hpp>
+#include <dovetailor/shop/deflection.hpp>
 
 namespace dovetailor {
 namespace {

@@ -5,10 +5,12 @@
 
 #include <gtest/gtest.h>
 
-#include <dovetailor/job_reader.hpp>
-#include <dovetailor/pin_gauge.hpp>
-#include <dovetailor/planner.hpp>
-#include <dovetailor/trim.hpp>
+#include <dovetailor/gcode/gcode_writer.hpp>
+#include <dovetailor/geometry/pin_gauge.hpp>
+#include <dovetailor/input/job_reader.hpp>
+#include <dovetailor/plan/planner.hpp>
+#include <dovetailor/plan/trim.hpp>
+#include <dovetailor/report/trim_report.hpp>
 
 #include "random_jobs.hpp"
 #include "test_support.hpp"

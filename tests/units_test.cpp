@@ -1,6 +1,6 @@
 #include <gtest/gtest.h>
 
-#include <dovetailor/units.hpp>
+#include <dovetailor/base/units.hpp>
 
 namespace dovetailor {
 namespace {

@@ -5,7 +5,7 @@
 
 #include <fmt/format.h>
 
-#include <dovetailor/error.hpp>
+#include <dovetailor/base/error.hpp>
 
 #include "commands.hpp"
 #include "help_format.hpp"

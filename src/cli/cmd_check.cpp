@@ -12,9 +12,10 @@
 
 #include <fmt/format.h>
 
-#include <dovetailor/check_drawing.hpp>
-#include <dovetailor/checker.hpp>
-#include <dovetailor/job_reader.hpp>
+#include <dovetailor/check/checker.hpp>
+#include <dovetailor/drawing/check_drawing.hpp>
+#include <dovetailor/input/job_reader.hpp>
+#include <dovetailor/report/check_report.hpp>
 
 #include "commands.hpp"
 #include "drawing_output.hpp"

@@ -1,8 +1,8 @@
 // dovetailor draw: the cross-section to scale, as SVG, PNG or PDF.
 
-#include <dovetailor/drawing.hpp>
-#include <dovetailor/job_reader.hpp>
-#include <dovetailor/planner.hpp>
+#include <dovetailor/drawing/drawing.hpp>
+#include <dovetailor/input/job_reader.hpp>
+#include <dovetailor/plan/planner.hpp>
 
 #include "commands.hpp"
 #include "drawing_output.hpp"

@@ -8,9 +8,9 @@
 #include <fmt/format.h>
 #include <nlohmann/json.hpp>
 
-#include <dovetailor/fit.hpp>
-#include <dovetailor/job_reader.hpp>
-#include <dovetailor/text_wrap.hpp>
+#include <dovetailor/base/text_wrap.hpp>
+#include <dovetailor/geometry/fit.hpp>
+#include <dovetailor/input/job_reader.hpp>
 
 #include "commands.hpp"
 #include "file_io.hpp"

@@ -5,11 +5,11 @@
 
 #include <fmt/format.h>
 
-#include <dovetailor/error.hpp>
-#include <dovetailor/gcode_writer.hpp>
-#include <dovetailor/job_reader.hpp>
-#include <dovetailor/planner.hpp>
-#include <dovetailor/text_wrap.hpp>
+#include <dovetailor/base/error.hpp>
+#include <dovetailor/base/text_wrap.hpp>
+#include <dovetailor/gcode/gcode_writer.hpp>
+#include <dovetailor/input/job_reader.hpp>
+#include <dovetailor/plan/planner.hpp>
 
 #include "commands.hpp"
 #include "file_io.hpp"

@@ -8,8 +8,8 @@
 #include <fmt/format.h>
 #include <nlohmann/json.hpp>
 
-#include <dovetailor/material_table.hpp>
-#include <dovetailor/text_wrap.hpp>
+#include <dovetailor/base/text_wrap.hpp>
+#include <dovetailor/shop/material_table.hpp>
 
 #include "commands.hpp"
 #include "flags.hpp"

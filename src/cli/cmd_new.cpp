@@ -1,6 +1,6 @@
 // dovetailor new: a commented job file to start from.
 
-#include <dovetailor/job_template.hpp>
+#include <dovetailor/input/job_template.hpp>
 
 #include "commands.hpp"
 #include "file_io.hpp"

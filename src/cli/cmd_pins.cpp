@@ -7,9 +7,9 @@
 #include <fmt/format.h>
 #include <nlohmann/json.hpp>
 
-#include <dovetailor/dovetail_section.hpp>
-#include <dovetailor/job_reader.hpp>
-#include <dovetailor/pin_gauge.hpp>
+#include <dovetailor/geometry/dovetail_section.hpp>
+#include <dovetailor/geometry/pin_gauge.hpp>
+#include <dovetailor/input/job_reader.hpp>
 
 #include "commands.hpp"
 #include "file_io.hpp"

@@ -2,9 +2,9 @@
 
 #include <fmt/format.h>
 
-#include <dovetailor/job_reader.hpp>
-#include <dovetailor/plan_report.hpp>
-#include <dovetailor/planner.hpp>
+#include <dovetailor/input/job_reader.hpp>
+#include <dovetailor/plan/planner.hpp>
+#include <dovetailor/report/plan_report.hpp>
 
 #include "commands.hpp"
 #include "file_io.hpp"

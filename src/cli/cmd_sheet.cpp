@@ -4,13 +4,13 @@
 
 #include <fmt/format.h>
 
-#include <dovetailor/cairo_render.hpp>
-#include <dovetailor/drawing.hpp>
-#include <dovetailor/error.hpp>
-#include <dovetailor/job_reader.hpp>
-#include <dovetailor/planner.hpp>
-#include <dovetailor/sheet.hpp>
-#include <dovetailor/sheet_text.hpp>
+#include <dovetailor/base/error.hpp>
+#include <dovetailor/drawing/drawing.hpp>
+#include <dovetailor/input/job_reader.hpp>
+#include <dovetailor/plan/planner.hpp>
+#include <dovetailor/render/cairo_render.hpp>
+#include <dovetailor/report/sheet.hpp>
+#include <dovetailor/report/sheet_text.hpp>
 
 #include "commands.hpp"
 #include "file_io.hpp"

@@ -4,10 +4,11 @@
 
 #include <fmt/format.h>
 
-#include <dovetailor/error.hpp>
-#include <dovetailor/job_reader.hpp>
-#include <dovetailor/planner.hpp>
-#include <dovetailor/trim.hpp>
+#include <dovetailor/base/error.hpp>
+#include <dovetailor/input/job_reader.hpp>
+#include <dovetailor/plan/planner.hpp>
+#include <dovetailor/plan/trim.hpp>
+#include <dovetailor/report/trim_report.hpp>
 
 #include "commands.hpp"
 #include "file_io.hpp"

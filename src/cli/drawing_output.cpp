@@ -1,8 +1,8 @@
 #include "drawing_output.hpp"
 
-#include <dovetailor/cairo_render.hpp>
-#include <dovetailor/drawing_scene.hpp>
-#include <dovetailor/error.hpp>
+#include <dovetailor/base/error.hpp>
+#include <dovetailor/drawing/drawing_scene.hpp>
+#include <dovetailor/render/cairo_render.hpp>
 
 #include "file_io.hpp"
 

@@ -6,7 +6,7 @@
 
 #include <CLI/CLI.hpp>
 
-#include <dovetailor/drawing.hpp>
+#include <dovetailor/drawing/drawing.hpp>
 
 namespace dovetailor::cli {
 

@@ -14,7 +14,7 @@
 
 #include <fmt/format.h>
 
-#include <dovetailor/error.hpp>
+#include <dovetailor/base/error.hpp>
 
 namespace dovetailor::cli {
 

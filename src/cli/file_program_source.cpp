@@ -4,7 +4,7 @@
 #include <cstring>
 #include <filesystem>
 
-#include <dovetailor/error.hpp>
+#include <dovetailor/base/error.hpp>
 
 namespace dovetailor::cli {
 

@@ -4,7 +4,7 @@
 #include <string>
 #include <vector>
 
-#include <dovetailor/program_source.hpp>
+#include <dovetailor/rs274/program_source.hpp>
 
 namespace dovetailor::cli {
 

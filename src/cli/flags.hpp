@@ -4,7 +4,7 @@
 
 #include <string>
 
-#include <dovetailor/job.hpp>
+#include <dovetailor/job/job.hpp>
 
 namespace dovetailor::cli {
 

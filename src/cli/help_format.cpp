@@ -2,7 +2,7 @@
 
 #include <sstream>
 
-#include <dovetailor/text_wrap.hpp>
+#include <dovetailor/base/text_wrap.hpp>
 
 namespace dovetailor::cli {
 namespace {

@@ -3,7 +3,7 @@
 #include <cstdlib>
 #include <filesystem>
 
-#include <dovetailor/error.hpp>
+#include <dovetailor/base/error.hpp>
 
 #include "file_io.hpp"
 

@@ -3,7 +3,7 @@
 #include <string>
 #include <vector>
 
-#include <dovetailor/post.hpp>
+#include <dovetailor/shop/post.hpp>
 
 namespace dovetailor::cli {
 

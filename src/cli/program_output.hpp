@@ -4,8 +4,8 @@
 
 #include <string>
 
-#include <dovetailor/gcode_writer.hpp>
-#include <dovetailor/plan.hpp>
+#include <dovetailor/gcode/gcode_writer.hpp>
+#include <dovetailor/plan/plan.hpp>
 
 namespace dovetailor::cli {
 

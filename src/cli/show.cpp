@@ -2,7 +2,7 @@
 
 #include <fmt/format.h>
 
-#include <dovetailor/length_text.hpp>
+#include <dovetailor/base/length_text.hpp>
 
 namespace dovetailor::cli {
 

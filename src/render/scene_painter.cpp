@@ -6,7 +6,7 @@
 
 #include <cairo-pdf.h>
 
-#include <dovetailor/cairo_render.hpp>
+#include <dovetailor/render/cairo_render.hpp>
 
 namespace dovetailor {
 namespace detail {

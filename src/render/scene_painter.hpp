@@ -4,7 +4,7 @@
 
 #include <cairo.h>
 
-#include <dovetailor/drawing_scene.hpp>
+#include <dovetailor/drawing/drawing_scene.hpp>
 
 namespace dovetailor::detail {
 

@@ -5,8 +5,8 @@
 #include <cairo-pdf.h>
 #include <fmt/format.h>
 
-#include <dovetailor/cairo_render.hpp>
-#include <dovetailor/sheet_text.hpp>
+#include <dovetailor/render/cairo_render.hpp>
+#include <dovetailor/report/sheet_text.hpp>
 
 #include "scene_painter.hpp"
 

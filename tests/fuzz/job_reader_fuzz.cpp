@@ -7,10 +7,10 @@
 #include <cstdint>
 #include <string>
 
-#include <dovetailor/error.hpp>
-#include <dovetailor/job_reader.hpp>
-#include <dovetailor/plan_report.hpp>
-#include <dovetailor/planner.hpp>
+#include <dovetailor/base/error.hpp>
+#include <dovetailor/input/job_reader.hpp>
+#include <dovetailor/plan/planner.hpp>
+#include <dovetailor/report/plan_report.hpp>
 
 extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size) {
   using namespace dovetailor;

@@ -6,8 +6,8 @@
 #include <cstdint>
 #include <string>
 
-#include <dovetailor/error.hpp>
-#include <dovetailor/program_text.hpp>
+#include <dovetailor/base/error.hpp>
+#include <dovetailor/gcode/program_text.hpp>
 
 extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size) {
   using namespace dovetailor;

@@ -7,10 +7,10 @@
 #include <cstdint>
 #include <string>
 
-#include <dovetailor/error.hpp>
-#include <dovetailor/program_source.hpp>
-#include <dovetailor/rs274_expression.hpp>
-#include <dovetailor/rs274_interpreter.hpp>
+#include <dovetailor/base/error.hpp>
+#include <dovetailor/rs274/program_source.hpp>
+#include <dovetailor/rs274/rs274_expression.hpp>
+#include <dovetailor/rs274/rs274_interpreter.hpp>
 
 extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size) {
   using namespace dovetailor;

@@ -1,0 +1,57 @@
+# Checks the stage layering (cmake/stages.cmake): every stage names only
+# stages before it, and every #include of a dovetailor header in a stage's
+# folders reaches its own stage or one it may use. Run as
+#   cmake -DSOURCE_DIR=<repo> -P cmake/check_stages.cmake
+# Exits non-zero naming each file, line and include that breaks the order.
+cmake_minimum_required(VERSION 3.25)
+if(NOT SOURCE_DIR)
+  get_filename_component(SOURCE_DIR "${CMAKE_CURRENT_LIST_DIR}/.." ABSOLUTE)
+endif()
+include(${SOURCE_DIR}/cmake/stages.cmake)
+
+set(problems "")
+set(earlier "")
+foreach(stage IN LISTS DOVETAILOR_STAGES)
+  foreach(used IN LISTS DOVETAILOR_STAGE_USES_${stage})
+    if(NOT used IN_LIST earlier)
+      list(APPEND problems "stage ${stage} uses ${used}, which is not a stage before it")
+    endif()
+  endforeach()
+  list(APPEND earlier ${stage})
+endforeach()
+
+foreach(stage IN LISTS DOVETAILOR_STAGES)
+  dovetailor_stage_reach(${stage} reach)
+  file(GLOB_RECURSE files "${SOURCE_DIR}/src/${stage}/*.[ch]pp" "${SOURCE_DIR}/src/${stage}/*.in"
+       "${SOURCE_DIR}/include/dovetailor/${stage}/*.hpp")
+  foreach(file IN LISTS files)
+    file(STRINGS ${file} lines REGEX "^[ \t]*#[ \t]*include")
+    foreach(line IN LISTS lines)
+      set(target "")
+      if(line MATCHES "#[ \t]*include[ \t]*<dovetailor/([a-z0-9_]+)/")
+        set(target ${CMAKE_MATCH_1})
+      elseif(line MATCHES "#[ \t]*include[ \t]*<dovetailor/")
+        list(APPEND problems "${file}: ${line}: a dovetailor header outside every stage folder")
+      elseif(line MATCHES "#[ \t]*include[ \t]*\"([a-z0-9_]+)/")
+        set(target ${CMAKE_MATCH_1})
+      endif()
+      if(target AND NOT target STREQUAL stage AND NOT target IN_LIST reach)
+        if(target IN_LIST DOVETAILOR_STAGES)
+          list(APPEND problems "${file}: ${line}: stage ${stage} may not use stage ${target}")
+        endif()
+      endif()
+    endforeach()
+  endforeach()
+endforeach()
+
+file(GLOB strays "${SOURCE_DIR}/include/dovetailor/*.hpp")
+foreach(stray IN LISTS strays)
+  list(APPEND problems "${stray}: a header outside every stage folder")
+endforeach()
+
+if(problems)
+  list(JOIN problems "\n  " text)
+  message(FATAL_ERROR "Stage order broken (cmake/stages.cmake):\n  ${text}")
+endif()
+list(JOIN DOVETAILOR_STAGES " -> " order)
+message(STATUS "Stage order holds: ${order}")

@@ -1,0 +1,178 @@
+#include <algorithm>
+#include <cmath>
+
+#include <fmt/format.h>
+
+#include <dovetailor/base/length_text.hpp>
+#include <dovetailor/drawing/drawing.hpp>
+#include <dovetailor/geometry/pin_gauge.hpp>
+#include <dovetailor/geometry/section_region.hpp>
+
+namespace dovetailor {
+namespace {
+
+// The direction (degrees from +X) from a flank's base corner along the base
+// plane into the void: toward the middle on a female, away from it on a male.
+double floor_direction(const DovetailSection& s, Side side) {
+  const bool toward_plus_x = (side == Side::Left) == (s.type == DovetailType::Female);
+  return toward_plus_x ? 0.0 : 180.0;
+}
+
+}  // namespace
+
+std::string_view reading_words(ReadingMethod method) {
+  switch (method) {
+    case ReadingMethod::OverPins:
+      return "over the pins";
+    case ReadingMethod::BetweenPins:
+      return "between the pins";
+    case ReadingMethod::SquareSideToPin:
+      return "square side to pin";
+  }
+  return "";
+}
+
+double ring_area(const std::vector<Point2>& ring) {
+  double twice = 0;
+  for (std::size_t i = 0; i < ring.size(); ++i) {
+    const auto& p = ring[i];
+    const auto& q = ring[(i + 1) % ring.size()];
+    twice += p.x * q.z - q.x * p.z;
+  }
+  return twice / 2;
+}
+
+std::vector<Point2> tool_silhouette(const Tool& tool, double x, double z, double top) {
+  const double r = tool.diameter / 2;
+  if (tool.kind == ToolKind::EndMill) return {{x - r, z}, {x + r, z}, {x + r, top}, {x - r, top}};
+  const double small = r - tool.flute_length * cot_deg(tool.angle);
+  const double neck = tool.neck_diameter / 2;
+  const double cone_top = z + tool.flute_length;
+  std::vector<Point2> ring = {{x - r, z}, {x + r, z}, {x + small, cone_top}};
+  if (top > cone_top) {
+    ring.push_back({x + neck, cone_top});
+    ring.push_back({x + neck, top});
+    ring.push_back({x - neck, top});
+    ring.push_back({x - neck, cone_top});
+  }
+  ring.push_back({x - small, cone_top});
+  return ring;
+}
+
+std::vector<Point2> add_stock(Drawing& drawing, const Job& job) {
+  const double left = stock_left_x(job), right = stock_right_x(job), height = job.stock.height;
+  drawing.stock_min = {left, -height};
+  drawing.stock_max = {right, 0};
+  std::vector<Point2> ring = {{left, -height}, {right, -height}, {right, 0}, {left, 0}};
+  drawing.outlines.push_back({OutlineStyle::Stock, ring, "Stock as supplied", ""});
+  return ring;
+}
+
+Drawing build_drawing(const Plan& plan) {
+  const Job& job = plan.job;
+  const Units u = job.units;
+  const auto& t = plan.target;
+  Drawing d;
+  d.title = job.part.name.empty() ? job.source : job.part.name;
+  d.subtitle = fmt::format("Section across the slide, looking from the front end; {}",
+                           u == Units::Inch ? "dimensions in inches" : "dimensions in mm");
+  const SectionRegion stock = SectionRegion::from_ring(add_stock(d, job));
+  const double left = d.stock_min.x, right = d.stock_max.x, height = -d.stock_min.z;
+
+  // What each operation removes: the sweep of its passes, inside the stock,
+  // less what the operations before it removed.
+  const double above = 0.5 * t.depth;  // tools drawn up past the top face
+  SectionRegion removed_before;
+  int index = 0;
+  for (const auto& op : plan.operations) {
+    const Tool* tool = find_tool(job, op.tool);
+    if (!tool) continue;
+    std::vector<Ring> silhouettes;
+    silhouettes.reserve(op.passes.size());
+    for (const auto& p : op.passes) silhouettes.push_back(tool_silhouette(*tool, p.x, p.z, above));
+    const SectionRegion inside = intersect(SectionRegion::union_of(silhouettes), stock);
+    const SectionRegion fresh = subtract(inside, removed_before);
+    removed_before = unite(removed_before, inside);
+    d.regions.push_back(
+        {RegionFill::Removed, index++, fresh.rings(),
+         fmt::format("Removed by operation {}: {} (T{})", index, op.title, op.tool)});
+  }
+  d.regions.push_back(
+      {RegionFill::Part, 0, {part_outline(t, left, right, height)}, "Finished part"});
+
+  // The dovetail cutter at its first pass and its finishing pass.
+  const Pass* first = nullptr;
+  const Pass* finish = nullptr;
+  for (const Pass* p : all_passes(plan)) {
+    const Tool* tool = find_tool(job, p->tool);
+    if (!tool || tool->kind != ToolKind::Dovetail) continue;
+    if (!first) first = p;
+    if (!finish && p->role == PassRole::Finish) finish = p;
+  }
+  const double tool_top = above + 0.25 * t.depth;
+  for (const Pass* p : {first, finish}) {
+    if (!p) continue;
+    const Tool* tool = find_tool(job, p->tool);
+    const bool final_pass = p == finish;
+    d.outlines.push_back({final_pass ? OutlineStyle::ToolFinal : OutlineStyle::ToolFirst,
+                          tool_silhouette(*tool, p->x, p->z, tool_top),
+                          fmt::format("T{} at pass {} ({})", p->tool, p->number,
+                                      final_pass ? "finishing" : "first cut"),
+                          fmt::format("T{} p{}", p->tool, p->number)});
+  }
+
+  // The pins of the last checkpoint, in the finished section.
+  if (job.gauge) {
+    const double pin = job.gauge->pin_diameter;
+    const auto& r = plan.final_reading;
+    std::vector<PinPlacement> placed;
+    for (Side side : {Side::Left, Side::Right})
+      if (t.flank(side).angled) placed.push_back(place_pin(t, side, pin));
+    for (const auto& p : placed) d.pins.push_back({p.center, pin});
+    d.pin_label =
+        fmt::format("Pin{} {} dia, reading {} {}", placed.size() > 1 ? "s" : "",
+                    length_text(pin, u), length_text(r.value, u), reading_words(r.method));
+    double from = 0, to = 0;
+    if (placed.size() == 2) {
+      from = placed[0].measuring_edge_x;
+      to = placed[1].measuring_edge_x;
+    } else if (placed.size() == 1) {
+      const Flank& square = t.left.angled ? t.right : t.left;
+      from = square.base.x;
+      to = placed[0].measuring_edge_x;
+    }
+    if (from > to) std::swap(from, to);
+    const double z = placed.empty() ? 0 : placed[0].center.z;
+    d.dimensions.push_back(
+        {DimensionKind::Horizontal, {from, z}, {to, z}, 0, 0, 0, r.value, length_text(r.value, u)});
+  }
+
+  // Widths, depth and angle.
+  const double base_z = -t.depth;
+  d.dimensions.push_back({DimensionKind::Horizontal, t.left.base, t.right.base,
+                          -(height - t.depth) - 0.12 * height, 0, 0, t.width_bottom(),
+                          length_text(t.width_bottom(), u)});
+  d.dimensions.push_back({DimensionKind::Horizontal, t.left.top, t.right.top,
+                          tool_top + 0.1 * height, 0, 0, t.width_top(),
+                          length_text(t.width_top(), u)});
+  d.dimensions.push_back({DimensionKind::Vertical,
+                          {right, 0},
+                          {right, base_z},
+                          0.12 * height,
+                          0,
+                          0,
+                          t.depth,
+                          length_text(t.depth, u)});
+  const Side angled = t.left.angled ? Side::Left : Side::Right;
+  const Flank& f = t.flank(angled);
+  const double floor_deg = floor_direction(t, angled);
+  const double flank_deg = degrees(std::atan2(f.top.z - f.base.z, f.top.x - f.base.x));
+  // The arc clears the pin (it reaches 1.5 D from the corner at 60 deg).
+  const double arc = std::max(0.6 * t.depth, job.gauge ? 1.7 * job.gauge->pin_diameter : 0.0);
+  d.dimensions.push_back({DimensionKind::Angle, f.base, f.top, arc, std::min(floor_deg, flank_deg),
+                          std::max(floor_deg, flank_deg), t.angle,
+                          fmt::format("{:g}\u00b0", t.angle)});
+  return d;
+}
+
+}  // namespace dovetailor

@@ -1,0 +1,381 @@
+#include <cmath>
+#include <cstdlib>
+
+#include <fmt/format.h>
+
+#include <dovetailor/report/sheet.hpp>
+
+#include "unit_text.hpp"
+
+namespace dovetailor {
+namespace {
+
+using Show = detail::UnitText;
+using detail::method_words;
+using detail::role_name;
+using detail::side_name;
+
+std::string direction_word(AxisDirection d, char axis) {
+  return fmt::format("{}{}", d == AxisDirection::Plus ? '+' : '-', axis);
+}
+
+std::string tool_words(const Tool& t, const Show& s) {
+  const std::string material = t.material == ToolMaterial::Hss ? "HSS" : "carbide";
+  if (t.kind == ToolKind::EndMill)
+    return fmt::format("T{} end mill {} dia, {} flutes, {}", t.number, s.len(t.diameter), t.flutes,
+                       material);
+  return fmt::format("T{} dovetail cutter {} dia x {:g} deg, {} flutes, neck {}, {}", t.number,
+                     s.len(t.diameter), t.angle, t.flutes, s.len(t.neck_diameter), material);
+}
+
+// The cutting move's direction along the slide: the first feed move along Y
+// on the pass's own line (a front-open pass that cuts on its way out runs in
+// on the line before it).
+std::string feed_direction(const Pass& p) {
+  for (std::size_t i = 1; i < p.moves.size(); ++i) {
+    const auto& a = p.moves[i - 1].to;
+    const auto& b = p.moves[i].to;
+    const bool on_line = std::abs(a.x - p.x_at(a.y)) < 1e-9 && std::abs(b.x - p.x_at(b.y)) < 1e-9 &&
+                         std::abs(a.z - p.z) < 1e-9 && std::abs(b.z - p.z) < 1e-9;
+    if (p.moves[i].kind == MoveKind::Feed && on_line && std::abs(b.y - a.y) > 1e-9)
+      return b.y > a.y ? "+Y" : "-Y";
+  }
+  return "+Y";
+}
+
+// How the dial reaches one setting from the last: the reading, marked '*'
+// when the wheel must first be turned back past it.
+struct DialStep {
+  std::string text;
+  bool back_off = false;
+};
+
+DialStep dial_step(const Handwheel& wheel, double from, double to) {
+  const DialMove move = dial_move(wheel, from, to);
+  return {dial_text(dial_setting(wheel, to).reading) + (move.back_off ? "*" : ""),
+          move.back_off.has_value()};
+}
+
+std::string dial_words(const Handwheel& w, std::string_view name, char axis, const Show& s) {
+  const long margin =
+      static_cast<long>(std::ceil(w.backlash / w.division() - 1e-9)) + (w.divisions + 3) / 4;
+  return fmt::format(
+      "{} dial: {} per turn, {} graduations of {}; the reading grows while the tool moves {} "
+      "over the work. Reach every setting moving {} (the reading {}), so the {} of backlash "
+      "stays taken up. A setting marked * lies behind the last one: turn back at least {} "
+      "graduations past it, then come forward onto it.",
+      name, s.len(w.travel_per_turn), w.divisions, s.len(w.division()),
+      direction_word(w.reading_grows, axis), direction_word(w.approach, axis),
+      reading_rises(w, w.approach) ? "rising" : "falling", s.len(w.backlash), margin);
+}
+
+std::string x_datum_words(const Plan& plan, const ManualFeeds& f, const Show& s) {
+  const Job& job = plan.job;
+  const bool left = f.datum.x_face == Side::Left;
+  const double face = left ? stock_left_x(job) : stock_right_x(job);
+  const double zero = x_dial_zero(plan, f);
+  const std::string face_words = left ? "left side face" : "right side face";
+  const std::string motion = left ? "+X" : "-X";
+  std::string how;
+  if (f.datum.x_method == XDatumMethod::EdgeFinder) {
+    how = fmt::format(
+        "X zero: with the {} edge finder in the spindle, bring it to the {} moving {} until "
+        "it kicks off centre; zero the X dial there. The spindle axis then stands {} (the "
+        "edge finder's radius) outside the face",
+        s.len(f.datum.edge_finder_diameter), face_words, motion,
+        s.len(f.datum.edge_finder_diameter / 2));
+  } else {
+    const Tool* first = find_tool(job, plan.operations.front().tool);
+    how = fmt::format(
+        "X zero: with T{} running, bring it to the {} moving {} until it just marks a paper "
+        "held on the face, less the paper; zero the X dial there. The spindle axis then stands "
+        "{} (the tool's radius) outside the face",
+        first->number, face_words, motion, s.len(first->diameter / 2));
+  }
+  return how + fmt::format(
+                   ", at X = {} from the dovetail centre line (the face is at X = {}). "
+                   "All X dial settings below count from this zero.",
+                   s.len(zero), s.len(face));
+}
+
+// What to do for readings around the one expected at a checkpoint.
+SheetTable correction_table(const Plan& plan, const Checkpoint& c, const Handwheel* x_dial,
+                            const Show& s) {
+  const Units u = plan.job.units;
+  const double step = u == Units::Inch ? to_mm(0.001, Units::Inch) : 0.02;
+  const ReadingBand band = final_reading_band(plan);
+  const bool female = plan.target.type == DovetailType::Female;
+  const bool final_stop = c.remaining_per_flank <= 0;
+  SheetTable t;
+  t.columns = {{"Reading", CellAlign::Right},
+               {"Left per flank", CellAlign::Right},
+               {"Then (the next passes)", CellAlign::Left}};
+  if (x_dial) t.columns.push_back({"X dial", CellAlign::Left});
+  for (int k = -3; k <= 3; ++k) {
+    const double error = k * step;
+    const double reading = c.expected.value + error;
+    const double left = c.remaining_per_flank + error * c.correction_per_reading;
+    const double shift = left - c.remaining_per_flank;  // more to cut on each flank
+    std::string then;
+    long divisions = 0;
+    // A reading inside the width tolerance (reading and width move together).
+    const bool in_band = reading >= band.low - 1e-9 && reading <= band.high + 1e-9;
+    if (final_stop) {
+      if (in_band) {
+        then = "on size: done";
+      } else if (left > 1e-9) {
+        then = fmt::format("trim {} off the flank", s.len(left));
+        if (x_dial) divisions = std::lround(left / x_dial->division());
+      } else {
+        then = "past size: stop, decide with the mating part";
+      }
+    } else if (left <= 1e-9) {
+      then = "at size or past: stop cutting";
+    } else if (std::abs(shift) < 1e-9) {
+      then = "as planned";
+    } else {
+      then = fmt::format("move {} {} the flank", s.len(std::abs(shift)),
+                         shift > 0 ? "into" : "away from");
+      if (x_dial) divisions = std::lround(shift / x_dial->division());
+    }
+    std::vector<std::string> row = {s.num(reading), left > 1e-9 ? s.num(left) : "-", then};
+    if (x_dial) {
+      std::string dial;
+      for (Side side : {Side::Left, Side::Right}) {
+        if (!plan.target.flank(side).angled || divisions == 0) continue;
+        // Into a female flank is outward from the centre line; into a male's, inward.
+        const bool plus_x = (side == Side::Right) == female;
+        const bool rises =
+            reading_rises(*x_dial, plus_x ? AxisDirection::Plus : AxisDirection::Minus);
+        dial += fmt::format("{}{} {:+d}", dial.empty() ? "" : ", ", side == Side::Left ? "L" : "R",
+                            rises ? divisions : -divisions);
+      }
+      row.push_back(dial);
+    }
+    t.rows.push_back(row);
+  }
+  return t;
+}
+
+CheckpointBox checkpoint_box(const Plan& plan, const Checkpoint& c, char letter,
+                             const Handwheel* x_dial, const Show& s) {
+  const Job& job = plan.job;
+  CheckpointBox box;
+  box.title = fmt::format("STOP - checkpoint {}: {} (after pass {})", letter, c.name, c.after_pass);
+  box.lines.push_back("Stop the spindle, clear the chips, deburr the edges the pins touch.");
+  if (job.gauge) {
+    box.lines.push_back(fmt::format("Measure {} of {}: expect {} (final {}).",
+                                    method_words(c.expected), s.len(job.gauge->pin_diameter),
+                                    s.len(c.expected.value), s.len(c.final_reading.value)));
+    if (c.reference_reading)
+      box.lines.push_back(
+          fmt::format("Or with one pin on the right flank, from the left stock "
+                      "face: expect {}.",
+                      s.len(*c.reference_reading)));
+  }
+  box.lines.push_back(fmt::format("Stock left on {}: {} laterally. Depth from the top face: {}.",
+                                  plan.target.angled_flanks() == 2 ? "each flank" : "the flank",
+                                  s.len(c.remaining_per_flank), s.len(c.expected_depth)));
+  if (job.gauge) {
+    const std::string taper = detail::taper_words(c, job.dovetail.length, s);
+    if (!taper.empty()) box.lines.push_back(taper + " The table below is for the front end.");
+  }
+  if (job.gauge) {
+    box.measured_label = fmt::format("Measured reading ({})", unit_symbol(job.units));
+    box.corrections = correction_table(plan, c, x_dial, s);
+  }
+  return box;
+}
+
+std::vector<SheetFact> title_facts(const Plan& plan, const SheetOptions& o, const Show& s) {
+  const Job& job = plan.job;
+  const auto& t = plan.target;
+  const bool female = t.type == DovetailType::Female;
+  std::vector<SheetFact> f;
+  f.push_back({"Part", job.part.name.empty() ? job.source : job.part.name});
+  f.push_back({"Material", job.part.material.empty() ? "-" : job.part.material});
+  f.push_back({"Units", fmt::format("{} (every length on this sheet)", unit_name(job.units))});
+  f.push_back({"Date", o.date.empty() ? "-" : o.date});
+  f.push_back({"Stock", fmt::format("{} x {} x {} (X x Y x Z)", s.num(job.stock.width),
+                                    s.num(job.stock.length), s.len(job.stock.height))});
+  f.push_back(
+      {"Dovetail", fmt::format("{} {:g} deg, {}, depth {}", female ? "female" : "male", t.angle,
+                               t.angled_flanks() == 2 ? "both flanks angled"
+                               : t.left.angled        ? "left flank angled"
+                                                      : "right flank angled",
+                               s.len(t.depth))});
+  f.push_back({"Widths", fmt::format("{} at the base plane, {} at the top plane",
+                                     s.len(t.width_bottom()), s.len(t.width_top()))});
+  if (job.gauge) {
+    const ReadingBand band = final_reading_band(plan);
+    f.push_back({"Final reading",
+                 fmt::format("{} {} (good from {} to {})", s.len(plan.final_reading.value),
+                             method_words(plan.final_reading), s.num(band.low), s.len(band.high))});
+    f.push_back(
+        {"Pins",
+         fmt::format("{} x {} dia{}", plan.final_reading.pins, s.len(job.gauge->pin_diameter),
+                     job.gauge->pin_class.empty() ? "" : ", class " + job.gauge->pin_class)});
+  }
+  return f;
+}
+
+SheetBlock cautions_block(bool manual) {
+  SheetBlock b{"Cautions", {}, false, true};
+  b.items.push_back("Secure the work and the tool. Keep the guards on and wear eye protection.");
+  if (manual) {
+    b.items.push_back("Lock every axis that is not moving during a pass.");
+    b.items.push_back(
+        "Conventional milling only on this machine (table backlash): feed each pass in the "
+        "direction the sheet gives.");
+  } else {
+    b.items.push_back(
+        "Verify the program by a dry run above the work and in single block before the first "
+        "part.");
+  }
+  b.items.push_back(
+      "Dovetail cutters are fragile and break suddenly: never plunge one into the material, "
+      "take light cuts, clear packed chips from the slot, and never raise it while it is under "
+      "the overhang.");
+  b.items.push_back(
+      "Measure only with the spindle stopped. Chips are sharp and hot; deburr the acute edges.");
+  b.items.push_back(
+      "These figures are advice, not a guarantee. Your shop's rules and the machine maker's "
+      "instructions come first.");
+  return b;
+}
+
+}  // namespace
+
+std::string dial_text(const DialReading& reading) {
+  return fmt::format("{}+{}", reading.turns, reading.division);
+}
+
+double x_dial_zero(const Plan& plan, const ManualFeeds& feeds) {
+  const bool left = feeds.datum.x_face == Side::Left;
+  const double face = left ? stock_left_x(plan.job) : stock_right_x(plan.job);
+  double radius = feeds.datum.edge_finder_diameter / 2;
+  if (feeds.datum.x_method == XDatumMethod::TouchOff && !plan.operations.empty())
+    if (const Tool* t = find_tool(plan.job, plan.operations.front().tool)) radius = t->diameter / 2;
+  return left ? face - radius : face + radius;
+}
+
+Sheet build_sheet(const Plan& plan, const SheetOptions& options) {
+  const Job& job = plan.job;
+  const Show s{job.units};
+  const ManualFeeds* dials = job.machine.kind == MachineKind::Manual && job.machine.manual
+                                 ? &*job.machine.manual
+                                 : nullptr;
+  Sheet sheet;
+  sheet.has_dials = dials != nullptr;
+  sheet.title = fmt::format("Pass sheet: {}", job.part.name.empty() ? job.source : job.part.name);
+  sheet.facts = title_facts(plan, options, s);
+  sheet.cautions = cautions_block(job.machine.kind == MachineKind::Manual);
+
+  sheet.setup = {"Set-up", {}, true, false};
+  auto& steps = sheet.setup.items;
+  steps.push_back(fmt::format(
+      "Square the stock; hold it top face up with the slide running along Y from the front end "
+      "(y = 0) for {}. Work zero: the top face, on the dovetail centre line, at the front end.",
+      s.len(job.dovetail.length)));
+  const auto feed_num = [&](double v) { return s.feed(v); };
+  for (const auto& tool : job.tools) {
+    const auto passes = detail::passes_of_tool(plan, tool.number);
+    if (passes.empty()) continue;
+    const detail::PassFeeds f = detail::pass_feeds(passes);
+    steps.push_back(fmt::format("{}: {}, {}.", tool_words(tool, s), detail::rpm_words(f, "rev/min"),
+                                detail::feed_words(f, feed_num, s.feed_unit())));
+  }
+  if (dials) {
+    steps.push_back(x_datum_words(plan, *dials, s));
+    steps.push_back(fmt::format(
+        "Z zero, for each tool before its first pass: lower the tip onto a {} feeler on the top "
+        "face moving -Z until the feeler just drags; zero the Z dial there (the tip is then at "
+        "Z = {}). Z dial settings count from this zero.",
+        s.len(dials->datum.shim), s.len(dials->datum.shim)));
+    steps.push_back(dial_words(dials->x, "X", 'X', s));
+    steps.push_back(dial_words(dials->z, "Z", 'Z', s));
+  } else {
+    steps.push_back("Set X zero on the dovetail centre line and Z zero on the top face.");
+  }
+
+  double x_at = 0, z_at = 0;  // dial positions (mm from each dial's zero) last set
+  int tool_in_spindle = 0;
+  int op_number = 0;
+  char letter = 'A';
+  const double x_zero = dials ? x_dial_zero(plan, *dials) : 0;
+  const double z_zero = dials ? dials->datum.shim : 0;
+  for (const auto& op : plan.operations) {
+    OperationTable table;
+    table.title = fmt::format("Operation {}: {} with T{}", ++op_number, op.title, op.tool);
+    if (const Tool* tool = find_tool(job, op.tool)) {
+      const detail::PassFeeds f = detail::pass_feeds(detail::passes_of(op));
+      table.intro.push_back(fmt::format("{}; {}; {}.", tool_words(*tool, s),
+                                        detail::rpm_words(f, "rev/min"),
+                                        detail::feed_words(f, feed_num, s.feed_unit())));
+    }
+    table.intro.push_back(fmt::format("Entry: {}.", op.entry));
+    if (dials && op.tool != tool_in_spindle) {
+      table.intro.push_back(fmt::format(
+          "Change to T{}; touch it off on the top face and zero the Z dial (set-up step).",
+          op.tool));
+      z_at = 0;
+      tool_in_spindle = op.tool;
+    }
+    table.columns = {{"Pass", CellAlign::Right}, {"Cut"}, {"Side"}, {"X", CellAlign::Right}};
+    if (dials) table.columns.push_back({"X dial", CellAlign::Right});
+    table.columns.push_back({"Z", CellAlign::Right});
+    if (dials) table.columns.push_back({"Z dial", CellAlign::Right});
+    table.columns.push_back({"Feed", CellAlign::Left});
+    table.columns.push_back({"Left", CellAlign::Right});
+    table.columns.push_back({"Done", CellAlign::Left, ColumnKind::Tick});
+    for (const auto& p : op.passes) {
+      OperationRow row;
+      row.cells = {std::to_string(p.number), role_name(p.role), side_name(p.side),
+                   s.num(p.x) + (p.taper_slope != 0 ? "~" : "")};
+      if (dials) {
+        row.cells.push_back(dial_step(dials->x, x_at, p.x - x_zero).text);
+        x_at = p.x - x_zero;
+      }
+      row.cells.push_back(s.num(p.z));
+      if (dials) {
+        row.cells.push_back(dial_step(dials->z, z_at, p.z - z_zero).text);
+        z_at = p.z - z_zero;
+      }
+      row.cells.push_back(feed_direction(p) + " " + s.feed(p.feed));
+      row.cells.push_back(s.num(p.stock_left));
+      row.cells.push_back("[ ]");
+      table.rows.push_back(row);
+      for (const auto& c : plan.checkpoints)
+        if (c.after_pass == p.number)
+          table.rows.push_back(
+              {{}, checkpoint_box(plan, c, letter++, dials ? &dials->x : nullptr, s)});
+    }
+    sheet.operations.push_back(table);
+  }
+
+  sheet.legend = {"Reading the tables", {}, false, false};
+  sheet.legend.items.push_back(fmt::format(
+      "X: the tool axis from the dovetail centre line; Z: the tool tip from the top face; "
+      "Feed: the direction along the slide and the rate in {}; Left: stock left on that flank "
+      "or wall after the pass; Done: tick when the pass is cut.",
+      s.feed_unit()));
+  if (dials)
+    sheet.legend.items.push_back(
+        "Dial: whole turns from the dial zero + the collar reading (\"5+192\": five turns, "
+        "then 192 on the collar; \"-1+167\": turned back past zero, the collar at 167), "
+        "rounded to the nearest graduation. * : turn back past the setting first (set-up). "
+        "X dial in a checkpoint table: graduations to add to (+) or take off (-) the X dial "
+        "settings of the passes still to come on that flank (L left, R right).");
+  bool taper = false;
+  for (const auto* p : all_passes(plan)) taper = taper || p->taper_slope != 0;
+  if (taper)
+    sheet.legend.items.push_back("~ : X at the front end; the pass runs at the gib's taper.");
+  if (!job.gauge)
+    sheet.legend.items.push_back("The job gives no gauge pins: measure the widths directly.");
+
+  sheet.notes = {"Notes", plan.notes, false, false};
+  for (const auto& w : plan.warnings) sheet.notes.items.push_back("WARNING: " + w);
+  return sheet;
+}
+
+}  // namespace dovetailor
