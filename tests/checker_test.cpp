@@ -34,7 +34,7 @@ std::string program_from_plan(const Plan& p) {
     text += fmt::format("T{} M6\nS{:.0f} M3\n", op.tool, op.rpm);
     for (const Pass* pass : all_passes(p)) {
       if (pass->tool != op.tool) continue;
-      for (const Move& m : pass->moves) {
+      for (const Move& m : pass->moves()) {
         if (m.kind == MoveKind::Rapid)
           text += fmt::format("G0 X{:.5f} Y{:.5f} Z{:.5f}\n", m.to.x, m.to.y, m.to.z);
         else

@@ -181,20 +181,18 @@ void write_job_program(const std::string& out_dir, const std::string& file_name,
         const double toward = (female == right) ? 1.0 : -1.0;
         const double off =
             toward * cutter_radius * std::sqrt(1 + pass.taper_slope * pass.taper_slope);
-        const auto& m = pass.moves;
-        const double y0 = m[2].to.y, y1 = m[3].to.y, dir = y1 > y0 ? 1.0 : -1.0;
+        const double y0 = pass.cut_start().y, y1 = pass.cut.back().to.y;
+        const double dir = y1 > y0 ? 1.0 : -1.0;
         const double lead = cutter_radius + plan.clearance;
         const auto line = [&](double y, double z) { return Point3{pass.x_at(y) + off, y, z}; };
-        e.move(line(y0 - dir * lead, m[0].to.z));
-        e.move(line(y0 - dir * lead, m[1].to.z));
-        e.move(line(y0 - dir * lead, m[2].to.z));
+        for (const auto& m : pass.entry) e.move(line(y0 - dir * lead, m.to.z));
         e.move(line(y0, pass.z));
         e.move(line(y1, pass.z));
         e.move(line(y1 + dir * lead, pass.z));
-        e.move(line(y1 + dir * lead, m[4].to.z));
+        for (const auto& m : pass.exit) e.move(line(y1 + dir * lead, m.to.z));
         continue;
       }
-      for (const auto& m : pass.moves) e.move(m.to, sized && params);
+      for (const auto& m : pass.moves()) e.move(m.to, sized && params);
     }
   }
   double park = 0;

@@ -3,11 +3,13 @@
 #include <cmath>
 #include <random>
 #include <sstream>
+#include <stdexcept>
 #include <vector>
 
 #include <fmt/format.h>
 #include <gtest/gtest.h>
 
+#include <dovetailor/gcode/gcode_block.hpp>
 #include <dovetailor/gcode/gcode_writer.hpp>
 #include <dovetailor/input/job_reader.hpp>
 #include <dovetailor/plan/planner.hpp>
@@ -130,7 +132,7 @@ void expect_program_feeds_of_the_plan(const Plan& p, const Post& post) {
   const Units units = program_units(post, p.job.units);
   std::vector<double> planned;
   for (const Pass* pass : all_passes(p))
-    for (const auto& m : pass->moves)
+    for (const auto& m : pass->moves())
       if (m.kind == MoveKind::Feed && (planned.empty() || std::abs(m.feed - planned.back()) > 1e-9))
         planned.push_back(m.feed);
   std::vector<double> written;
@@ -244,6 +246,53 @@ TEST(gcode_writer, compensated_path_lies_on_the_finished_flank) {
     }
     EXPECT_GT(checked, 0);
   }
+}
+
+// The compensated pass is written from the pass's parts (gcode_writer.hpp):
+// its entry moves, each on the lead-in point of the flank line, then the
+// cut with G41/G42 before it and G40 after, then its exit moves on the
+// lead-out point. A stop added to the entry shows in the program there.
+const Pass* first_compensated_finish(const Plan& p) {
+  for (const auto& op : p.operations)
+    if (op.kind == OperationKind::Undercut)
+      for (const auto& pass : op.passes)
+        if (pass.role == PassRole::Finish && pass.side) return &pass;
+  return nullptr;
+}
+
+TEST(gcode_writer, compensated_pass_writes_its_lead_in_from_the_pass_entry) {
+  Plan p = plan(sample("fixture-slide-female"));
+  const Post post = shipped("rs274ngc-full");
+  ASSERT_EQ(sizing_style(p, post), SizingStyle::CutterCompensation);
+  Pass& pass = const_cast<Pass&>(*first_compensated_finish(p));
+  Move halfway = pass.entry.front();
+  halfway.to.z = (p.safe_z + pass.entry[1].to.z) / 2;
+  pass.entry.insert(pass.entry.begin() + 1, halfway);
+  const Units units = program_units(post, p.job.units);
+  const auto lines = lines_of(write_program(p, post, {}));
+  const std::string pass_comment = fmt::format("(pass {}: finish", pass.number);
+  std::size_t at = 0;
+  while (at < lines.size() && lines[at].find(pass_comment) == std::string::npos) ++at;
+  while (at < lines.size() && lines[at].find("lead-in") == std::string::npos) ++at;
+  ASSERT_LT(at + 4, lines.size());
+  EXPECT_TRUE(has_word(lines[at + 1], "G0")) << lines[at + 1];
+  EXPECT_TRUE(has_word(lines[at + 1], "Z" + format_length(halfway.to.z, post, units)))
+      << lines[at + 1];
+  // Then the rest of the entry (approach height, depth), then compensation on.
+  EXPECT_TRUE(has_word(lines[at + 3], "G1")) << lines[at + 3];
+  EXPECT_NE(lines[at + 4].find("compensation on"), std::string::npos) << lines[at + 4];
+}
+
+TEST(gcode_writer, a_compensated_pass_that_is_not_one_straight_cut_is_a_programming_error) {
+  Plan p = plan(sample("fixture-slide-female"));
+  const Post post = shipped("rs274ngc-full");
+  Pass& pass = const_cast<Pass&>(*first_compensated_finish(p));
+  // The cut in two pieces: the lead-in and lead-out are only defined for one.
+  Move half = pass.cut.front();
+  half.to.y = (pass.cut_start().y + half.to.y) / 2;
+  half.to.x = pass.x_at(half.to.y);
+  pass.cut.insert(pass.cut.begin(), half);
+  EXPECT_THROW(write_program(p, post, {}), std::logic_error);
 }
 
 TEST(gcode_writer, lead_in_is_longer_than_the_compensation_radius) {

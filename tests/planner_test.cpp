@@ -354,8 +354,9 @@ TEST_F(planner_property, the_dovetail_cutter_never_rises_or_plunges_inside_the_s
     const Tool& cutter = *first_tool(job, ToolKind::Dovetail);
     for (const auto* pass : all_passes(p)) {
       if (pass->tool != cutter.number) continue;
-      Point3 at = pass->moves.front().to;
-      for (const auto& m : pass->moves) {
+      const auto moves = pass->moves();
+      Point3 at = moves.front().to;
+      for (const auto& m : moves) {
         const bool vertical = std::abs(m.to.z - at.z) > 1e-12;
         const bool inside =
             at.y > -cutter.diameter / 2 && at.y < job.stock.length + cutter.diameter / 2;
@@ -373,12 +374,77 @@ TEST_F(planner_property, rapids_stay_at_the_safe_height_or_outside_the_stock) {
     for (const auto& op : p.operations) {
       const double r = find_tool(job, op.tool)->diameter / 2;
       for (const auto& pass : op.passes)
-        for (const auto& m : pass.moves)
+        for (const auto& m : pass.moves())
           if (m.kind == MoveKind::Rapid && m.to.z < p.safe_z - 1e-9) {
             EXPECT_TRUE(m.to.y <= -r || m.to.y >= job.stock.length + r) << "pass " << pass.number;
           }
     }
   }
+}
+
+// A pass in three parts (plan.hpp): the entry starts at the safe height and
+// comes down outside the stock to the start of the cut, at the pass's depth;
+// the cut feeds along the slide on the pass's own line at that depth; the
+// exit ends at the safe height. Each part continues from the one before.
+TEST_F(planner_property, every_pass_enters_from_the_safe_height_cuts_at_depth_and_leaves_to_it) {
+  for (const auto& [job, p] : *plans_) {
+    for (const auto& op : p.operations) {
+      const double r = find_tool(job, op.tool)->diameter / 2;
+      for (const auto& pass : op.passes) {
+        SCOPED_TRACE(::testing::Message() << "pass " << pass.number);
+        ASSERT_FALSE(pass.entry.empty());
+        ASSERT_FALSE(pass.cut.empty());
+        ASSERT_FALSE(pass.exit.empty());
+        EXPECT_EQ(pass.entry.front().kind, MoveKind::Rapid);
+        EXPECT_NEAR(pass.entry.front().to.z, p.safe_z, 1e-9);
+        // Down to depth outside the stock, before any move along the slide.
+        Point3 at = pass.entry.front().to;
+        for (const auto& m : pass.entry) {
+          if (std::abs(m.to.z - at.z) > 1e-12) {
+            EXPECT_TRUE(at.y <= -r + 1e-9 || at.y >= job.stock.length + r - 1e-9) << at.y;
+          }
+          at = m.to;
+        }
+        EXPECT_NEAR(pass.cut_start().z, pass.z, 1e-9);
+        for (const auto& m : pass.cut) {
+          EXPECT_EQ(m.kind, MoveKind::Feed);
+          EXPECT_DOUBLE_EQ(m.feed, pass.feed);
+          EXPECT_NEAR(m.to.z, pass.z, 1e-9);
+          EXPECT_NEAR(m.to.x, pass.x_at(m.to.y), 1e-9);
+        }
+        EXPECT_NEAR(pass.cut_start().x, pass.x_at(pass.cut_start().y), 1e-9);
+        EXPECT_GT(std::abs(pass.cut_travel()), job.dovetail.length / 2);
+        EXPECT_NEAR(pass.exit.back().to.z, p.safe_z, 1e-9);
+        // The whole path is the three parts in order.
+        EXPECT_EQ(pass.moves().size(), pass.entry.size() + pass.cut.size() + pass.exit.size());
+        EXPECT_EQ(pass.moves()[pass.entry.size()], pass.cut.front());
+      }
+    }
+  }
+}
+
+// The cut is the feed that takes the pass's step: it runs the way the pass's
+// milling mode asks (planner_detail.hpp: with M3 a tool feeding +Y with the
+// work on its +X side climbs), so the direction of the cut is that of the
+// chip the pass was planned for.
+TEST_F(planner_property, the_cut_runs_the_way_its_milling_mode_asks) {
+  int checked = 0;
+  for (const auto& [job, p] : *plans_) {
+    const bool female = job.dovetail.type == DovetailType::Female;
+    for (const auto& op : p.operations) {
+      if (op.kind != OperationKind::Undercut) continue;
+      for (const auto& pass : op.passes) {
+        if (!pass.side || pass.mode == MillingMode::Both) continue;
+        // A female's flank is outboard of the cutter, a male's inboard.
+        const bool plus_x = (*pass.side == Side::Right) == female;
+        const bool climb = (pass.cut_travel() > 0) == plus_x;
+        EXPECT_EQ(pass.mode, climb ? MillingMode::Climb : MillingMode::Conventional)
+            << "pass " << pass.number;
+        ++checked;
+      }
+    }
+  }
+  EXPECT_GT(checked, 0);
 }
 
 // ---- what each cut takes, worked out from the geometry ----
@@ -475,9 +541,10 @@ std::vector<CutAlongY> cuts_at(const Job& job, const Plan& p, double y) {
   std::vector<CutAlongY> out;
   for (const Pass* pass : all_passes(p)) {
     const Tool* tool = find_tool(job, pass->tool);
-    for (std::size_t i = 1; i < pass->moves.size(); ++i) {
-      const Move& m = pass->moves[i];
-      const Point3 a = pass->moves[i - 1].to, b = m.to;
+    const auto moves = pass->moves();
+    for (std::size_t i = 1; i < moves.size(); ++i) {
+      const Move& m = moves[i];
+      const Point3 a = moves[i - 1].to, b = m.to;
       if (m.kind != MoveKind::Feed || std::abs(b.z - a.z) > 1e-9 || std::abs(b.y - a.y) < 1e-9)
         continue;
       if (y < std::min(a.y, b.y) || y > std::max(a.y, b.y)) continue;
@@ -916,11 +983,7 @@ TEST(planner, milling_direction_follows_the_spindle_rotation) {
   const Plan p = plan(job);
   for (const auto* pass : all_passes(p)) {
     if (pass->tool != 2 || !pass->side || pass->role != PassRole::Finish) continue;
-    const auto& m = pass->moves;
-    double feed_dy = 0;
-    for (std::size_t i = 1; i < m.size(); ++i)
-      if (m[i].kind == MoveKind::Feed && std::abs(m[i].to.z - m[i - 1].to.z) < 1e-12)
-        feed_dy = m[i].to.y - m[i - 1].to.y;
+    const double feed_dy = pass->cut_travel();
     if (*pass->side == Side::Right) {
       EXPECT_LT(feed_dy, 0) << "female right flank, conventional: feed -Y";
     } else {

@@ -18,6 +18,22 @@ bool finishing(PassRole role) {
   return role == PassRole::SemiFinish || role == PassRole::Finish || role == PassRole::Spring;
 }
 
+// A pass the compensated path can be written for: its entry comes straight
+// down and its exit goes straight up at the ends of a cut of one straight
+// feed along the pass's line, both ends outside the stock (open ends).
+bool straight_between_open_ends(const Pass& pass) {
+  if (pass.entry.empty() || pass.cut.size() != 1 || pass.exit.empty()) return false;
+  const auto same_xy = [](const Point3& a, const Point3& b) {
+    return std::abs(a.x - b.x) < 1e-9 && std::abs(a.y - b.y) < 1e-9;
+  };
+  const Point3 start = pass.cut_start(), end = pass.cut.back().to;
+  const auto at = [&](const std::vector<Move>& part, const Point3& p) {
+    return std::all_of(part.begin(), part.end(), [&](const Move& m) { return same_xy(m.to, p); });
+  };
+  return pass.cut.front().kind == MoveKind::Feed && std::abs(start.z - pass.z) < 1e-9 &&
+         std::abs(end.z - pass.z) < 1e-9 && at(pass.entry, start) && at(pass.exit, end);
+}
+
 const Tool& tool_of(const Plan& plan, int number) {
   const Tool* tool = find_tool(plan.job, number);
   if (!tool)
@@ -179,7 +195,7 @@ class Writer {
     if (sized && style_ == SizingStyle::CutterCompensation) {
       compensated_pass(pass);
     } else {
-      for (const auto& m : pass.moves)
+      for (const auto& m : pass.moves())
         motion(m.kind, m.to, m.feed, {},
                sized && style_ == SizingStyle::Parameters ? parameter_x(pass, m.to.x) : "");
     }
@@ -190,19 +206,20 @@ class Writer {
     }
   }
 
-  // See write_program in gcode_writer.hpp for the shape of the path.
+  // See write_program in gcode_writer.hpp for the shape of the path: the
+  // pass's entry and exit moved back and forward along the flank line by the
+  // lead, its cut with compensation turned on before and off after it.
   void compensated_pass(const Pass& pass) {
-    const auto& m = pass.moves;
-    if (m.size() != 5 || m[0].kind != MoveKind::Rapid || m[1].kind != MoveKind::Rapid ||
-        m[2].kind != MoveKind::Feed || m[3].kind != MoveKind::Feed || m[4].kind != MoveKind::Rapid)
+    if (!straight_between_open_ends(pass))
       throw std::logic_error(fmt::format(
           "G-code writer: pass {} is not a straight cut between open ends", pass.number));
-    const double y0 = m[2].to.y, y1 = m[3].to.y;
-    const double dir = y1 > y0 ? 1.0 : -1.0;
+    const double y0 = pass.cut_start().y, y1 = pass.cut.back().to.y;
+    const double dir = pass.cut_travel() > 0 ? 1.0 : -1.0;
     const double off = contour_offset(plan_, pass), lead = lead_length(plan_);
     const auto on_line = [&](double y, double z) { return Point3{pass.x_at(y) + off, y, z}; };
     const double ya = y0 - dir * lead, yb = y1 + dir * lead;
     const int g = compensation_code(plan_.target.type, *pass.side, dir);
+    const double feed = pass.cut.front().feed;
     // Under RS274NGC an axis word left out means "where the tool is", and
     // with compensation on (or just turned off) the tool is not on the
     // programmed line: X is written on every block from the lead-in to the
@@ -212,18 +229,22 @@ class Writer {
       last_.erase('X');
       motion(args...);
     };
-    with_x(MoveKind::Rapid, on_line(ya, m[0].to.z), 0.0, std::vector<Word>{}, std::string{},
-           std::string("lead-in on the flank line"));
-    motion(MoveKind::Rapid, on_line(ya, m[1].to.z), 0);
-    motion(MoveKind::Feed, on_line(ya, m[2].to.z), m[2].feed);
-    with_x(MoveKind::Feed, on_line(y0, pass.z), m[3].feed,
+    for (std::size_t i = 0; i < pass.entry.size(); ++i) {
+      const Move& m = pass.entry[i];
+      if (i == 0)
+        with_x(m.kind, on_line(ya, m.to.z), m.feed, std::vector<Word>{}, std::string{},
+               std::string("lead-in on the flank line"));
+      else
+        motion(m.kind, on_line(ya, m.to.z), m.feed);
+    }
+    with_x(MoveKind::Feed, on_line(y0, pass.z), feed,
            std::vector<Word>{{'G', static_cast<double>(g)}, {'D', static_cast<double>(pass.tool)}},
            std::string{}, std::string("compensation on: straight entry outside the stock"));
-    with_x(MoveKind::Feed, on_line(y1, pass.z), m[3].feed, std::vector<Word>{}, std::string{},
+    with_x(MoveKind::Feed, on_line(y1, pass.z), feed, std::vector<Word>{}, std::string{},
            std::string{});
-    with_x(MoveKind::Feed, on_line(yb, pass.z), m[3].feed, std::vector<Word>{{'G', 40}},
-           std::string{}, std::string("compensation off: straight exit outside the stock"));
-    motion(MoveKind::Rapid, on_line(yb, m[4].to.z), 0);
+    with_x(MoveKind::Feed, on_line(yb, pass.z), feed, std::vector<Word>{{'G', 40}}, std::string{},
+           std::string("compensation off: straight exit outside the stock"));
+    for (const Move& m : pass.exit) motion(m.kind, on_line(yb, m.to.z), m.feed);
   }
 
   void stop(const Checkpoint& c, char letter) {

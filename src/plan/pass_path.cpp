@@ -41,19 +41,26 @@ void add_moves(const PlanContext& ctx, Pass& pass, double tool_radius, Along alo
   const auto at = [&](AxisLine line, double y, double z) {
     return Point3{line.x + line.slope * y, y, z};
   };
-  auto& m = pass.moves;
-  const auto rapid = [&](Point3 p) { m.push_back({MoveKind::Rapid, p, 0}); };
-  const auto feed = [&](Point3 p, double f) { m.push_back({MoveKind::Feed, p, f}); };
+  const auto rapid = [](std::vector<Move>& part, Point3 p) {
+    part.push_back({MoveKind::Rapid, p, 0});
+  };
+  const auto feed = [](std::vector<Move>& part, Point3 p, double f) {
+    part.push_back({MoveKind::Feed, p, f});
+  };
+  // Down outside the stock: rapid to the approach height, feed to depth.
+  const auto descend = [&](Point3 above) {
+    rapid(pass.entry, {above.x, above.y, ctx.safe_z});
+    rapid(pass.entry, {above.x, above.y, ctx.near_z});
+    feed(pass.entry, {above.x, above.y, pass.z}, plunge_feed);
+  };
   const bool dovetail = pass.tool == ctx.cutter.number;
 
   if (!front_open) {
     const double start = along == Along::Forward ? outside_front : far;
     const double end = along == Along::Forward ? far : outside_front;
-    rapid(at(own, start, ctx.safe_z));
-    rapid(at(own, start, ctx.near_z));
-    feed(at(own, start, pass.z), plunge_feed);
-    feed(at(own, end, pass.z), pass.feed);
-    rapid(at(own, end, ctx.safe_z));
+    descend(at(own, start, pass.z));
+    feed(pass.cut, at(own, end, pass.z), pass.feed);
+    rapid(pass.exit, at(own, end, ctx.safe_z));
     return;
   }
   // Front-open: in from the front end. A cut feeding +Y is taken on the way
@@ -61,20 +68,22 @@ void add_moves(const PlanContext& ctx, Pass& pass, double tool_radius, Along alo
   // cutter (which may never rise inside the slot) comes back on its line. A
   // cut feeding -Y runs in on the cleared line, steps over at the closed end
   // and is taken on the way out.
-  const bool cut_going_in = along == Along::Forward;
-  const AxisLine in = cut_going_in ? own : previous;
-  rapid(at(in, outside_front, ctx.safe_z));
-  rapid(at(in, outside_front, ctx.near_z));
-  feed(at(in, outside_front, pass.z), plunge_feed);
-  feed(at(in, far, pass.z), pass.feed);
-  if (cut_going_in && !dovetail) {
-    feed(at(in, far, ctx.near_z), plunge_feed);
-    rapid(at(in, far, ctx.safe_z));
+  if (along == Along::Forward) {
+    descend(at(own, outside_front, pass.z));
+    feed(pass.cut, at(own, far, pass.z), pass.feed);
+    if (!dovetail) {
+      feed(pass.exit, at(own, far, ctx.near_z), plunge_feed);
+    } else {
+      feed(pass.exit, at(own, outside_front, pass.z), pass.feed);
+    }
+    rapid(pass.exit, at(own, dovetail ? outside_front : far, ctx.safe_z));
     return;
   }
-  if (!cut_going_in) feed(at(own, far, pass.z), plunge_feed);
-  feed(at(own, outside_front, pass.z), pass.feed);
-  rapid(at(own, outside_front, ctx.safe_z));
+  descend(at(previous, outside_front, pass.z));
+  feed(pass.entry, at(previous, far, pass.z), pass.feed);
+  feed(pass.entry, at(own, far, pass.z), plunge_feed);
+  feed(pass.cut, at(own, outside_front, pass.z), pass.feed);
+  rapid(pass.exit, at(own, outside_front, ctx.safe_z));
 }
 
 }  // namespace dovetailor::detail

@@ -218,6 +218,13 @@ ReadingBand final_reading_band(const Plan& plan) {
   return {nominal + tol.lower, nominal + tol.upper};
 }
 
+std::vector<Move> Pass::moves() const {
+  std::vector<Move> out = entry;
+  out.insert(out.end(), cut.begin(), cut.end());
+  out.insert(out.end(), exit.begin(), exit.end());
+  return out;
+}
+
 std::vector<const Pass*> all_passes(const Plan& plan) {
   std::vector<const Pass*> out;
   for (const auto& op : plan.operations)

@@ -59,8 +59,9 @@ struct AxisLine {
   double slope = 0;
 };
 
-// Fills pass.moves: from the safe height outside the stock, down outside the
-// work, the cut along Y (respecting the job's ends), out and up again.
+// Fills the pass's entry, cut and exit (plan.hpp): from the safe height
+// outside the stock, down outside the work, the cut along Y (respecting the
+// job's ends), out and up again.
 // `previous` is the line the last pass at this level ran on, already cleared:
 // with a front-open dovetail a pass that cuts feeding -Y runs in there, steps
 // over at the closed end and cuts on the way out; one that cuts feeding +Y

@@ -36,11 +36,12 @@ Pass shifted(const Plan& plan, const Pass& finish, PassRole role, double left, d
   p.radial_step = taken;
   p.stock_left = left;
   p.deflection = 0;
-  for (auto& m : p.moves) {
-    const bool on_line = std::abs(m.to.x - finish.x_at(m.to.y)) < tiny;
-    m.to.x -= toward * ((on_line ? left : left + taken) - error);
-    if (std::abs(m.to.z - finish.z) < tiny) m.to.z = p.z;
-  }
+  for (auto* part : {&p.entry, &p.cut, &p.exit})
+    for (auto& m : *part) {
+      const bool on_line = std::abs(m.to.x - finish.x_at(m.to.y)) < tiny;
+      m.to.x -= toward * ((on_line ? left : left + taken) - error);
+      if (std::abs(m.to.z - finish.z) < tiny) m.to.z = p.z;
+    }
   return p;
 }
 

@@ -28,20 +28,8 @@ std::string tool_words(const Tool& t, const Show& s) {
                      s.len(t.diameter), t.angle, t.flutes, s.len(t.neck_diameter), material);
 }
 
-// The cutting move's direction along the slide: the first feed move along Y
-// on the pass's own line (a front-open pass that cuts on its way out runs in
-// on the line before it).
-std::string feed_direction(const Pass& p) {
-  for (std::size_t i = 1; i < p.moves.size(); ++i) {
-    const auto& a = p.moves[i - 1].to;
-    const auto& b = p.moves[i].to;
-    const bool on_line = std::abs(a.x - p.x_at(a.y)) < 1e-9 && std::abs(b.x - p.x_at(b.y)) < 1e-9 &&
-                         std::abs(a.z - p.z) < 1e-9 && std::abs(b.z - p.z) < 1e-9;
-    if (p.moves[i].kind == MoveKind::Feed && on_line && std::abs(b.y - a.y) > 1e-9)
-      return b.y > a.y ? "+Y" : "-Y";
-  }
-  return "+Y";
-}
+// The cut's direction along the slide.
+std::string feed_direction(const Pass& p) { return p.cut_travel() < -1e-9 ? "-Y" : "+Y"; }
 
 // How the dial reaches one setting from the last: the reading, marked '*'
 // when the wheel must first be turned back past it.

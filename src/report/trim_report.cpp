@@ -28,19 +28,11 @@ std::string wrapped(const std::string& text, const std::string& indent = "") {
   return out;
 }
 
-// Travel of a pass's cut along Y, in words: its first move along Y on its
-// own line (a front-open pass cutting on its way out runs in on another).
+// Travel of a pass's cut along Y, in words.
 std::string travel_words(const Pass& p) {
-  for (std::size_t i = 1; i < p.moves.size(); ++i) {
-    const auto& a = p.moves[i - 1].to;
-    const auto& b = p.moves[i].to;
-    const bool on_line = std::abs(a.x - p.x_at(a.y)) < 1e-9 && std::abs(b.x - p.x_at(b.y)) < 1e-9;
-    if (p.moves[i].kind == MoveKind::Feed && on_line && std::abs(a.z - p.z) < 1e-9 &&
-        std::abs(b.z - p.z) < 1e-9 && std::abs(b.y - a.y) > 1e-9)
-      return b.y > a.y ? "from the front end toward the back"
-                       : "from the back end toward the front";
-  }
-  return "along the slide";
+  const double travel = p.cut_travel();
+  if (std::abs(travel) <= 1e-9) return "along the slide";
+  return travel > 0 ? "from the front end toward the back" : "from the back end toward the front";
 }
 
 const Checkpoint& checkpoint_of(const Plan& plan, const Trim& t) {

@@ -72,13 +72,16 @@ struct ProgramOptions {
 };
 
 // A compensated finishing pass (SizingStyle::CutterCompensation) is written
-// as: G0 to the lead-in start on the flank line, L = lead_length() before
-// the plan's entry point (outside the stock) at the safe height; G0 down to
-// the plan's approach height; G1 to cutting depth; G41/G42 G1 D<tool> to the
-// plan's entry point moved onto the flank line (the entry: straight, along
-// the flank line, length L); G1 to the plan's exit point on the flank line;
-// G40 G1 L further along the line (the exit, outside the stock); G0 up to
-// the safe height. All other passes follow the plan's moves exactly.
+// from the pass's parts (plan.hpp): the moves of its entry (down from the
+// safe height to cutting depth) at the lead-in start on the flank line, L =
+// lead_length() before the start of the cut (outside the stock); G41/G42 G1
+// D<tool> to the start of the cut moved onto the flank line (the entry:
+// straight, along the flank line, length L); G1 to the end of the cut on the
+// flank line; G40 G1 L further along the line (the exit, outside the
+// stock); the moves of its exit (up to the safe height) there. Such a pass
+// must come straight down and go straight up at the ends of one straight
+// cut (open ends); any other shape is a programming error (logic_error).
+// All other passes follow the plan's moves exactly.
 //
 // Throws InputError naming the post key (or "coolant") when the post cannot
 // write what the program needs, e.g. mist coolant on a post without a mist

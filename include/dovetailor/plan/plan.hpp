@@ -60,10 +60,29 @@ struct Pass {
   double rpm = 0;
   double deflection = 0;  // predicted tool deflection at the flutes, mm
   MillingMode mode = MillingMode::Both;
-  std::vector<Move> moves;  // the whole path of the pass, from the safe height and back
+  // The path of the pass in three parts, each move starting where the one
+  // before it ended (the first where the tool was, at the safe height):
+  //  entry: from the safe height outside the stock down to cutting depth and
+  //         on to the start of the cut; every move outside the stock, or in
+  //         space this level has already cleared (with a front-open dovetail
+  //         a pass that cuts on its way out runs in on the line cleared
+  //         before it and steps over to its own line at the closed end);
+  //  cut:   the feeds at `z` on the pass's own line (x_at), along the slide;
+  //  exit:  from the end of the cut back up to the safe height, past the far
+  //         end, up from the closed end (end mill), or back along the line
+  //         out of the open front end (dovetail cutter).
+  std::vector<Move> entry;
+  std::vector<Move> cut;
+  std::vector<Move> exit;
 
   bool operator==(const Pass&) const = default;
   double x_at(double y) const { return x + taper_slope * y; }
+  // The whole path: entry, cut and exit in order.
+  std::vector<Move> moves() const;
+  // Where the cut starts: the end of the entry.
+  Point3 cut_start() const { return entry.back().to; }
+  // The cut's travel along the slide, mm: > 0 toward the back end (+Y).
+  double cut_travel() const { return cut.back().to.y - cut_start().y; }
 };
 
 enum class OperationKind { RoughSlot, RoughShoulders, FinishSquareWall, Undercut };
