@@ -13,6 +13,7 @@
 #include <dovetailor/gcode/gcode_writer.hpp>
 #include <dovetailor/input/job_reader.hpp>
 #include <dovetailor/plan/planner.hpp>
+#include <dovetailor/report/plan_note_text.hpp>
 
 #include "feed_text.hpp"
 #include "random_jobs.hpp"
@@ -101,16 +102,15 @@ std::string header_tool(const std::string& header, int number) {
 TEST(gcode_writer, header_carries_the_plan_warnings) {
   Plan p = plan(sample("spindle-slide-tapered-female"));
   ASSERT_FALSE(p.warnings.empty());  // the sample's 4000 rev/min spindle caps the end mill
-  p.warnings.push_back(
-      "a warning with (parentheses) in it, long enough to need wrapping on "
-      "every post that writes comments no wider than eighty columns");
+  // A long one, to be wrapped on every post.
+  p.warnings.push_back(FinishBendWarning{.pass = 99, .deflection = 0.0123, .limit = 0.005});
   for (const char* name : posts) {
     SCOPED_TRACE(name);
     const Post post = shipped(name);
     const std::string program = write_program(p, post, {});
     const std::string header = header_text(program);
     for (const auto& w : p.warnings) {
-      std::string shown = w;
+      std::string shown = warning_text(w, p.job.units);
       std::replace(shown.begin(), shown.end(), '(', '[');
       std::replace(shown.begin(), shown.end(), ')', ']');
       EXPECT_NE(header.find("WARNING: " + shown), std::string::npos) << header;

@@ -16,6 +16,7 @@
 #include <dovetailor/input/job_template.hpp>
 #include <dovetailor/plan/planner.hpp>
 #include <dovetailor/report/check_report.hpp>
+#include <dovetailor/report/plan_note_text.hpp>
 
 #include "test_support.hpp"
 
@@ -37,7 +38,7 @@ void expect_reads_back_and_plans(DovetailType type, Units units) {
   EXPECT_FALSE(p.checkpoints.empty());
   // A start free of warnings: the example's cutter bends less than a quarter
   // of the tolerance on the finishing pass.
-  EXPECT_TRUE(p.warnings.empty()) << p.warnings.front();
+  EXPECT_TRUE(p.warnings.empty()) << warning_texts(p).front();
   for (const char* name : {"rs274ngc-full", "small-control", "iso6983-numbered"}) {
     const std::string path = std::string("post/") + name + ".toml";
     const Post post = read_post(read_source_file(path), path);

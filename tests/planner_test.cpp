@@ -4,6 +4,7 @@
 #include <random>
 #include <sstream>
 #include <utility>
+#include <variant>
 
 #include <gtest/gtest.h>
 
@@ -836,9 +837,13 @@ TEST(planner, a_cutter_within_a_tenth_of_a_degree_is_planned_at_its_own_angle) {
     EXPECT_NEAR(p.checkpoints.back().expected.value, c.reading, 1e-5);
     EXPECT_NEAR(contact_height(p.final_reading.pin_diameter, p.target.angle),
                 c.angle > 45 ? 3.41174 : 3.41668, 1e-5);
-    bool noted = false;
-    for (const auto& n : p.notes) noted = noted || n.find("planned at") != std::string::npos;
-    EXPECT_TRUE(noted);
+    const CutterAngleNote* noted = nullptr;
+    for (const auto& n : p.notes)
+      if (const auto* a = std::get_if<CutterAngleNote>(&n)) noted = a;
+    ASSERT_NE(noted, nullptr);
+    EXPECT_EQ(noted->cutter_angle, c.angle);
+    EXPECT_NEAR(noted->width_bottom, 28.0, 1e-9);
+    EXPECT_NEAR(noted->width_top, c.top, 1e-5);
   }
 }
 
@@ -1032,7 +1037,10 @@ TEST(planner, mate_sets_the_width_for_the_wanted_clearance) {
               section_of(male.dovetail).width_bottom(), 1e-6);
   const Plan p = plan(from_mate);
   ASSERT_FALSE(p.notes.empty());
-  EXPECT_NE(p.notes.front().find("mate: female read"), std::string::npos);
+  const auto* mate_note = std::get_if<MateNote>(&p.notes.front());
+  ASSERT_NE(mate_note, nullptr);
+  EXPECT_EQ(mate_note->mate.type, DovetailType::Female);
+  EXPECT_NEAR(mate_note->derivation.width, section_of(male.dovetail).width_bottom(), 1e-6);
 }
 
 TEST(planner, mate_shallower_than_this_male_costs_clearance) {
@@ -1052,7 +1060,9 @@ TEST(planner, mate_shallower_than_this_male_costs_clearance) {
          text.substr(end);
   const Job job = read_job(text, "mate.toml");
   EXPECT_NEAR(from_mm(section_of(job.dovetail).width_bottom(), Units::Inch), 1.4696325, 1e-7);
-  EXPECT_NE(job.dovetail.mate_derivation.find("deeper than the female"), std::string::npos);
+  ASSERT_TRUE(job.dovetail.mate_derivation.has_value());
+  EXPECT_NEAR(from_mm(job.dovetail.mate_derivation->depth_loss, Units::Inch), 0.0288675, 1e-7);
+  EXPECT_NEAR(from_mm(job.dovetail.mate_derivation->depth_difference, Units::Inch), 0.025, 1e-12);
 }
 
 }  // namespace

@@ -10,6 +10,7 @@
 #include <dovetailor/gcode/gcode_writer.hpp>
 #include <dovetailor/input/job_reader.hpp>
 #include <dovetailor/plan/planner.hpp>
+#include <dovetailor/report/plan_note_text.hpp>
 
 #include "commands.hpp"
 #include "file_io.hpp"
@@ -35,7 +36,7 @@ CoolantChoice parse_coolant(const std::string& word) {
 }
 
 void print_plan_warnings(const Plan& plan) {
-  for (const auto& w : plan.warnings) {
+  for (const auto& w : warning_texts(plan)) {
     const std::string first = "dovetailor: warning: ";
     bool start = true;
     for (const auto& line : wrap_words(w, 80 - first.size())) {

@@ -5,6 +5,7 @@
 #include <fmt/format.h>
 
 #include <dovetailor/base/text_wrap.hpp>
+#include <dovetailor/report/plan_note_text.hpp>
 #include <dovetailor/report/plan_report.hpp>
 
 #include "gcode_writer_detail.hpp"
@@ -148,7 +149,7 @@ std::vector<std::string> header_lines(const Plan& plan, const Post& post,
   out.push_back(sizing_words(plan, post, style, s));
   // The plan's warnings, as the text plan gives them (the writer makes
   // parentheses in them brackets, so no comment nests).
-  for (const auto& w : plan.warnings) out.push_back("WARNING: " + w);
+  for (const auto& w : warning_texts(plan)) out.push_back("WARNING: " + w);
   out.push_back(
       "CAUTION: advice, not a guarantee. Secure the work and the tool; guards and eye "
       "protection. Measure only with the spindle stopped. Never plunge the dovetail cutter or "

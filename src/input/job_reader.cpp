@@ -196,39 +196,27 @@ class JobReader {
     const Mate& m = *d.mate;
     const int n = d.sides == AngledSides::Both ? 2 : 1;
     const double mate_bottom = width_for_reading(m.type, n, m.reading, m.pin_diameter, d.angle);
-    const auto show = [&](double mm) {
-      return fmt::format("{:.{}f} {}", from_mm(mm, job_.units), length_decimals(job_.units) + 1,
-                         unit_symbol(job_.units));
-    };
     // A male deeper than the female lifts it off the shelf and closes the
     // gap by n (H_m - H_f) cot a (fit.hpp); a male mate's depth is optional.
     const bool mate_male = m.type == DovetailType::Male;
     const double loss = mate_male
                             ? (m.depth > 0 ? depth_clearance_loss(d.depth, m.depth, d.angle, n) : 0)
                             : depth_clearance_loss(m.depth, d.depth, d.angle, n);
-    const std::string depths =
-        loss > 0 ? fmt::format(" {} {} for the male {} deeper than the female",
-                               mate_male ? '+' : '-', show(loss), show(std::abs(m.depth - d.depth)))
-                 : "";
+    MateDerivation how{.mate_width = mate_bottom,
+                       .depth_loss = loss > 0 ? loss : 0,
+                       .depth_difference = loss > 0 ? std::abs(m.depth - d.depth) : 0};
     if (mate_male) {
       // The female's mouth must be the male's root plus the clearance.
       d.width = mate_bottom + m.clearance + loss;
       d.width_at = WidthAt::Top;
-      d.mate_derivation = fmt::format(
-          "mate: male read {} over {} pins -> root width {}; mouth = root + clearance {}{} = {}",
-          show(m.reading), show(m.pin_diameter), show(mate_bottom), show(m.clearance), depths,
-          show(d.width));
     } else {
-      const double mouth =
+      how.mate_mouth =
           width_top_from_bottom(DovetailType::Female, mate_bottom, m.depth, d.angle, n);
-      d.width = mouth - m.clearance - loss;
+      d.width = how.mate_mouth - m.clearance - loss;
       d.width_at = WidthAt::Bottom;
-      d.mate_derivation = fmt::format(
-          "mate: female read {} between {} pins, depth {} -> floor width {}, mouth {}; "
-          "root = mouth - clearance {}{} = {}",
-          show(m.reading), show(m.pin_diameter), show(m.depth), show(mate_bottom), show(mouth),
-          show(m.clearance), depths, show(d.width));
     }
+    how.width = d.width;
+    d.mate_derivation = how;
     if (d.width <= 0) t.fail("mate", "the measured mate leaves no width for this part");
   }
 

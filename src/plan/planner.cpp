@@ -245,23 +245,14 @@ DovetailSpec dovetail_as_cut(const Job& job) {
   return spec;
 }
 
-Plan plan(const Job& given) {
-  if (given.part.material.empty())
-    throw InputError(
-        "the planner needs the work material for speeds, feeds and cutting forces; "
-        "add [part] material = \"...\"",
-        {given.source}, "part.material");
-  const Material& material =
-      find_material(builtin_materials(), given.part.material, {given.source});
-  const Tool& end_mill = pick_tool(given, ToolKind::EndMill, given.strategy.end_mill, "end mill");
-  const Tool& cutter =
-      pick_tool(given, ToolKind::Dovetail, given.strategy.dovetail_cutter, "dovetail cutter");
-  check_cutter_angle(given, cutter);
-  // Everything below plans the dovetail the cutter will really cut.
-  Job job = given;
-  job.dovetail = dovetail_as_cut(given);
+namespace {
+
+// The planner's settings for `job`, in its units (common practice, no
+// source): heights and clearances, allowances, bend limits and the milling
+// direction. Warns of settings the planner overrides or finds unusual.
+PlanContext make_context(const Job& job, const Material& material, const Tool& end_mill,
+                         const Tool& cutter, std::vector<PlanWarning>& warnings) {
   const Units u = job.units;
-  std::vector<std::string> warnings;
   PlanContext ctx{.job = job,
                   .material = material,
                   .end_mill = end_mill,
@@ -286,13 +277,104 @@ Plan plan(const Job& given) {
   ctx.finish_deflection_limit = 0.25 * band;
   const bool manual = job.machine.kind == MachineKind::Manual;
   ctx.mode = manual ? MillingMode::Conventional : st.direction.value_or(MillingMode::Climb);
-  if (manual && st.direction == MillingMode::Climb)
-    warnings.push_back(
-        "strategy.direction = \"climb\" is ignored on a manual machine: table "
-        "backlash can pull the work into the cutter; every pass is conventional");
+  if (manual && st.direction == MillingMode::Climb) warnings.push_back(ClimbOnManualWarning{});
   if (ctx.finish_allowance >= ctx.rough_allowance + by_units(u, 0.2, 5))
-    warnings.push_back("the finish allowance is unusually large");
+    warnings.push_back(
+        LargeFinishAllowanceWarning{.finish = ctx.finish_allowance, .rough = ctx.rough_allowance});
+  return ctx;
+}
 
+// How the target was derived from the job `given`: from the mate, at the
+// cutter's angle, aimed at the middle of the band.
+void note_the_target(const PlanContext& ctx, const Job& given, std::vector<PlanNote>& notes) {
+  const Job& job = ctx.job;
+  if (job.dovetail.mate && job.dovetail.mate_derivation)
+    notes.push_back(MateNote{*job.dovetail.mate, *job.dovetail.mate_derivation});
+  if (job.dovetail.angle != given.dovetail.angle)
+    notes.push_back(CutterAngleNote{.tool = ctx.cutter.number,
+                                    .cutter_angle = ctx.cutter.angle,
+                                    .dovetail_angle = given.dovetail.angle,
+                                    .tolerance = cutter_angle_tolerance,
+                                    .width_bottom = design_width_bottom(given.dovetail),
+                                    .gib = job.dovetail.gib.has_value(),
+                                    .width_top = ctx.target.width_top(),
+                                    .nominal_width_top = section_of(given.dovetail).width_top()});
+  if (const double aim = band_middle(job.dovetail.tolerance); aim != 0)
+    notes.push_back(
+        AimedWidthNote{.width_bottom = ctx.target.width_bottom(),
+                       .offset = aim,
+                       .nominal_width_bottom = section_of(job.dovetail).width_bottom()});
+}
+
+// The choices the passes were planned with.
+void note_the_choices(const PlanContext& ctx, std::vector<PlanNote>& notes) {
+  notes.push_back(MillingNote{.material = ctx.material.name,
+                              .mode = ctx.mode,
+                              .manual = ctx.job.machine.kind == MachineKind::Manual});
+  notes.push_back(
+      AllowanceNote{.rough = ctx.rough_allowance,
+                    .floor = ctx.female() ? std::optional(ctx.floor_allowance) : std::nullopt,
+                    .finish = ctx.finish_allowance,
+                    .last_cut = ctx.last_cut});
+  notes.push_back(
+      BendLimitNote{.rough = ctx.rough_deflection_limit, .finish = ctx.finish_deflection_limit});
+}
+
+// Warns of the first finishing pass predicted to bend past its limit.
+void check_finish_bend(const PlanContext& ctx, const Operation& undercut) {
+  for (const auto& p : undercut.passes)
+    if (p.role == PassRole::Finish && p.deflection > ctx.finish_deflection_limit) {
+      ctx.warnings.push_back(FinishBendWarning{
+          .pass = p.number, .deflection = p.deflection, .limit = ctx.finish_deflection_limit});
+      return;
+    }
+}
+
+// The stops the job asks for (by default after roughing, before finishing
+// and after finishing), in the order of the passes they follow.
+std::vector<Checkpoint> place_checkpoints(const PlanContext& ctx, const Plan& plan,
+                                          const Operation& undercut) {
+  const std::vector<CheckpointAt> at =
+      ctx.job.strategy.checkpoints.value_or(std::vector<CheckpointAt>{
+          CheckpointAt::AfterRoughing, CheckpointAt::BeforeFinish, CheckpointAt::AfterFinish});
+  const int after_rough = last_pass_of(undercut, PassRole::Rough);
+  const int after_semi = last_pass_of(undercut, PassRole::SemiFinish);
+  int after_finish = last_pass_of(undercut, PassRole::Spring);
+  if (after_finish == 0) after_finish = last_pass_of(undercut, PassRole::Finish);
+  std::vector<Checkpoint> out;
+  for (CheckpointAt a : at) {
+    if (a == CheckpointAt::AfterRoughing)
+      out.push_back(
+          make_checkpoint(ctx, plan, "after roughing", after_rough, ctx.finish_allowance));
+    if (a == CheckpointAt::BeforeFinish && after_semi > 0)
+      out.push_back(make_checkpoint(ctx, plan, "before finishing", after_semi, ctx.last_cut));
+    if (a == CheckpointAt::AfterFinish)
+      out.push_back(make_checkpoint(ctx, plan, "after finishing", after_finish, 0));
+  }
+  std::sort(out.begin(), out.end(),
+            [](const Checkpoint& a, const Checkpoint& b) { return a.after_pass < b.after_pass; });
+  return out;
+}
+
+}  // namespace
+
+Plan plan(const Job& given) {
+  if (given.part.material.empty())
+    throw InputError(
+        "the planner needs the work material for speeds, feeds and cutting forces; "
+        "add [part] material = \"...\"",
+        {given.source}, "part.material");
+  const Material& material =
+      find_material(builtin_materials(), given.part.material, {given.source});
+  const Tool& end_mill = pick_tool(given, ToolKind::EndMill, given.strategy.end_mill, "end mill");
+  const Tool& cutter =
+      pick_tool(given, ToolKind::Dovetail, given.strategy.dovetail_cutter, "dovetail cutter");
+  check_cutter_angle(given, cutter);
+  // Everything below plans the dovetail the cutter will really cut.
+  Job job = given;
+  job.dovetail = dovetail_as_cut(given);
+  std::vector<PlanWarning> warnings;
+  PlanContext ctx = make_context(job, material, end_mill, cutter, warnings);
   check_job(ctx);
 
   Plan result;
@@ -302,80 +384,14 @@ Plan plan(const Job& given) {
   result.clearance = ctx.clearance;
   const double pin = job.gauge ? job.gauge->pin_diameter : 0;
   result.final_reading = reading_of(ctx.target, pin);
-  if (!job.dovetail.mate_derivation.empty()) result.notes.push_back(job.dovetail.mate_derivation);
-  if (job.dovetail.angle != given.dovetail.angle) {
-    const DovetailSection nominal = section_of(given.dovetail);
-    const double diff = angle_difference(cutter, given.dovetail);
-    result.notes.push_back(fmt::format(
-        "T{} is {:g} deg, {:g} deg {} than the dovetail's {:g} deg (within {:g} deg): the flanks "
-        "are planned at {:g} deg. The base-plane width {} is held (the cutter's tip corner sets "
-        "it){}; the top-plane width comes out {} ({} at {:g} deg), and the pin readings are those "
-        "of {:g} deg flanks.",
-        cutter.number, cutter.angle, std::abs(diff), diff > 0 ? "steeper" : "shallower",
-        given.dovetail.angle, cutter_angle_tolerance, cutter.angle,
-        ctx.show(design_width_bottom(given.dovetail)),
-        job.dovetail.gib ? ", the gib's allowance taken at the cutter's angle" : "",
-        ctx.show(ctx.target.width_top()), ctx.show(nominal.width_top()), given.dovetail.angle,
-        cutter.angle));
-  }
-  if (const double aim = band_middle(job.dovetail.tolerance); aim != 0)
-    result.notes.push_back(fmt::format(
-        "Aimed at the middle of the width tolerance: {} at the base plane, {} {} the nominal {}, "
-        "so that rounding the program's last decimal keeps the part inside the band.",
-        ctx.show(ctx.target.width_bottom()), ctx.show(std::abs(aim)), aim > 0 ? "over" : "under",
-        ctx.show(section_of(job.dovetail).width_bottom())));
+  note_the_target(ctx, given, result.notes);
   result.operations = detail::rough_operations(ctx);
   result.operations.push_back(detail::undercut_operation(ctx));
   const Operation& undercut = result.operations.back();
-
-  result.notes.push_back(fmt::format("Material: {}. Milling {} on the flanks{}.", material.name,
-                                     ctx.mode == MillingMode::Climb ? "climb" : "conventional",
-                                     manual ? " (manual machine: always conventional)" : ""));
-  result.notes.push_back(fmt::format(
-      "Allowances: end mill leaves {} per side{}; the dovetail cutter leaves {} per flank for "
-      "finishing{}.",
-      ctx.show(ctx.rough_allowance),
-      ctx.female() ? fmt::format(" and {} on the floor", ctx.show(ctx.floor_allowance)) : "",
-      ctx.show(ctx.finish_allowance),
-      ctx.last_cut > 0 ? fmt::format(", then a semi-finish pass leaves {}", ctx.show(ctx.last_cut))
-                       : ""));
-  result.notes.push_back(fmt::format(
-      "Radial steps are sized so the predicted bend of the dovetail cutter stays under {}; the "
-      "finishing pass should bend it under {} (a quarter of the tolerance). A spring pass at the "
-      "same setting takes out what the cutter sprang away on the finishing pass.",
-      ctx.show(ctx.rough_deflection_limit), ctx.show(ctx.finish_deflection_limit)));
-  for (const auto& p : undercut.passes)
-    if (p.role == PassRole::Finish && p.deflection > ctx.finish_deflection_limit) {
-      warnings.push_back(fmt::format(
-          "pass {}: predicted deflection {} on the finishing pass is more than a quarter of the "
-          "tolerance; the spring pass matters, and a smaller finish allowance would help",
-          p.number, ctx.show(p.deflection)));
-      break;
-    }
-
-  // Checkpoints.
-  std::vector<CheckpointAt> at = st.checkpoints.value_or(std::vector<CheckpointAt>{
-      CheckpointAt::AfterRoughing, CheckpointAt::BeforeFinish, CheckpointAt::AfterFinish});
-  const int after_rough = last_pass_of(undercut, PassRole::Rough);
-  const int after_semi = last_pass_of(undercut, PassRole::SemiFinish);
-  int after_finish = last_pass_of(undercut, PassRole::Spring);
-  if (after_finish == 0) after_finish = last_pass_of(undercut, PassRole::Finish);
-  const bool have_pin = job.gauge.has_value();
-  if (!have_pin)
-    warnings.push_back("no [gauge] pin_diameter: the checkpoints give widths but no pin readings");
-  for (CheckpointAt a : at) {
-    if (a == CheckpointAt::AfterRoughing)
-      result.checkpoints.push_back(
-          make_checkpoint(ctx, result, "after roughing", after_rough, ctx.finish_allowance));
-    if (a == CheckpointAt::BeforeFinish && after_semi > 0)
-      result.checkpoints.push_back(
-          make_checkpoint(ctx, result, "before finishing", after_semi, ctx.last_cut));
-    if (a == CheckpointAt::AfterFinish)
-      result.checkpoints.push_back(
-          make_checkpoint(ctx, result, "after finishing", after_finish, 0));
-  }
-  std::sort(result.checkpoints.begin(), result.checkpoints.end(),
-            [](const Checkpoint& a, const Checkpoint& b) { return a.after_pass < b.after_pass; });
+  note_the_choices(ctx, result.notes);
+  check_finish_bend(ctx, undercut);
+  if (!job.gauge) warnings.push_back(NoGaugeWarning{});
+  result.checkpoints = place_checkpoints(ctx, result, undercut);
   result.warnings = std::move(warnings);
   return result;
 }

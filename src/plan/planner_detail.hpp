@@ -26,7 +26,7 @@ struct PlanContext {
   double rough_deflection_limit = 0;
   double finish_deflection_limit = 0;
   MillingMode mode = MillingMode::Climb;  // wanted on the flanks
-  std::vector<std::string>& warnings;
+  std::vector<PlanWarning>& warnings;
   int next_pass = 1;
 
   Units units() const { return job.units; }

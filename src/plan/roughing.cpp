@@ -44,8 +44,7 @@ Operation start_operation(const PlanContext& ctx, OperationKind kind, std::strin
   const Tool& tool = ctx.end_mill;
   const CuttingData data =
       cutting_data(tool, ctx.material, ctx.job.machine, {.radial_step = radial_step});
-  for (const auto& w : data.warnings)
-    ctx.warnings.push_back(fmt::format("T{}: {}", tool.number, warning_text(w, ctx.units())));
+  for (const auto& w : data.warnings) ctx.warnings.push_back(CuttingDataWarning{tool.number, w});
   Operation op;
   op.kind = kind;
   op.tool = tool.number;

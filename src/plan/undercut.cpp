@@ -179,7 +179,7 @@ Operation undercut_operation(PlanContext& ctx) {
   const CuttingData rough =
       cutting_data(cutter, ctx.material, ctx.job.machine, {.radial_step = step_limit});
   for (const auto& w : rough.warnings)
-    ctx.warnings.push_back(fmt::format("T{}: {}", cutter.number, warning_text(w, ctx.units())));
+    ctx.warnings.push_back(CuttingDataWarning{cutter.number, w});
   // Finishing: half the roughing chip load for the surface (common practice).
   const CuttingData finish =
       cutting_data(cutter, ctx.material, ctx.job.machine,

@@ -4,6 +4,7 @@
 
 #include <dovetailor/base/length_text.hpp>
 #include <dovetailor/base/text_wrap.hpp>
+#include <dovetailor/report/plan_note_text.hpp>
 #include <dovetailor/report/plan_report.hpp>
 
 #include "unit_text.hpp"
@@ -196,12 +197,12 @@ std::string format_plan(const Plan& plan) {
   if (!plan.notes.empty()) {
     line("");
     line("Notes");
-    for (const auto& n : plan.notes) out += wrap(n, "  - ", "    ");
+    for (const auto& n : note_texts(plan)) out += wrap(n, "  - ", "    ");
   }
   if (!plan.warnings.empty()) {
     line("");
     line("Warnings");
-    for (const auto& w : plan.warnings) out += wrap(w, "  ! ", "    ");
+    for (const auto& w : warning_texts(plan)) out += wrap(w, "  ! ", "    ");
   }
   return out;
 }

@@ -3,6 +3,7 @@
 
 #include <fmt/format.h>
 
+#include <dovetailor/report/plan_note_text.hpp>
 #include <dovetailor/report/sheet.hpp>
 
 #include "unit_text.hpp"
@@ -361,8 +362,8 @@ Sheet build_sheet(const Plan& plan, const SheetOptions& options) {
   if (!job.gauge)
     sheet.legend.items.push_back("The job gives no gauge pins: measure the widths directly.");
 
-  sheet.notes = {"Notes", plan.notes, false, false};
-  for (const auto& w : plan.warnings) sheet.notes.items.push_back("WARNING: " + w);
+  sheet.notes = {"Notes", note_texts(plan), false, false};
+  for (const auto& w : warning_texts(plan)) sheet.notes.items.push_back("WARNING: " + w);
   return sheet;
 }
 

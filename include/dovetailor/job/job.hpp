@@ -68,6 +68,20 @@ struct Mate {
   bool operator==(const Mate&) const = default;
 };
 
+// How the width of this part was derived from its measured mate (fit.hpp
+// conventions), mm.
+struct MateDerivation {
+  double mate_width = 0;  // the mate's width at its base plane: a male's root, a female's floor
+  double mate_mouth = 0;  // a female mate's mouth (0 for a male mate)
+  // The gap a male deeper than the female closes, n (Hm - Hf) cot a, and
+  // that depth difference; both 0 when the male is not deeper.
+  double depth_loss = 0;
+  double depth_difference = 0;
+  double width = 0;  // this part's width: a female's mouth, a male's root
+
+  bool operator==(const MateDerivation&) const = default;
+};
+
 enum class CheckpointAt { AfterRoughing, BeforeFinish, AfterFinish };
 
 // How the planner cuts, from the job's [strategy] table; unset values are
@@ -109,7 +123,7 @@ struct DovetailSpec {
   double chamfer = 0;  // top edge break
   std::optional<Gib> gib;
   std::optional<Mate> mate;
-  std::string mate_derivation;  // how the width was derived from the mate, in words
+  std::optional<MateDerivation> mate_derivation;  // how the width was derived from the mate
 
   bool operator==(const DovetailSpec&) const = default;
 };

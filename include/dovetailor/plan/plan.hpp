@@ -9,6 +9,7 @@
 #include <dovetailor/geometry/dovetail_section.hpp>
 #include <dovetailor/geometry/pin_gauge.hpp>
 #include <dovetailor/job/job.hpp>
+#include <dovetailor/plan/plan_note.hpp>
 
 namespace dovetailor {
 
@@ -140,8 +141,8 @@ struct Plan {
   double clearance = 0;  // how far outside the stock the tools enter and leave
   std::vector<Operation> operations;
   std::vector<Checkpoint> checkpoints;
-  std::vector<std::string> notes;  // derivations, choices stated in words
-  std::vector<std::string> warnings;
+  std::vector<PlanNote> notes;  // derivations and choices, as data (plan_note.hpp)
+  std::vector<PlanWarning> warnings;
 
   bool operator==(const Plan&) const = default;
 };

@@ -15,7 +15,24 @@ std::string format_plan(const Plan& plan);
 // The plan as a JSON text (2-space indent), lengths in the job's units, feeds
 // in units per minute. Keys include `units`, `final_reading`, `operations`
 // (each with `passes`), `checkpoints` (each with `expected_reading`,
-// `remaining_per_flank`, `pin_diameter`), `notes` and `warnings`.
+// `remaining_per_flank`, `pin_diameter`), `notes` and `warnings` (in words,
+// plan_note_text.hpp), and `note_data` and `warning_data`: the same notes
+// and warnings in the same order as objects, each with its `kind`
+// (note_kind, warning_kind) and its figures in the job's units:
+//   mate: mate_type, mate_reading, mate_pin_diameter, mate_depth,
+//     clearance, mate_width, mate_mouth, depth_loss, depth_difference, width;
+//   cutter_angle: tool, cutter_angle, dovetail_angle, angle_tolerance (deg),
+//     width_bottom, width_top, nominal_width_top, gib (bool);
+//   aimed_width: width_bottom, offset (aimed less nominal), nominal_width_bottom;
+//   milling: material, mode ("climb", "conventional"), manual (bool);
+//   allowances: rough_allowance, floor_allowance (female only),
+//     finish_allowance, last_cut;
+//   bend_limits: rough_limit, finish_limit;
+//   cutting_data: tool, capped ("rpm" or "feed"), wanted, used (rev/min or
+//     units/min);
+//   large_finish_allowance: finish_allowance, rough_allowance;
+//   finish_bend: pass, deflection, limit;
+//   climb_on_manual, no_gauge: the kind alone.
 std::string plan_json(const Plan& plan);
 
 // The cautions every printed output carries, wrapped to 80 columns.
