@@ -68,24 +68,16 @@ std::vector<Point2> add_stock(Drawing& drawing, const Job& job) {
   return ring;
 }
 
-Drawing build_drawing(const Plan& plan) {
-  const Job& job = plan.job;
-  const Units u = job.units;
-  const auto& t = plan.target;
-  Drawing d;
-  d.title = job.part.name.empty() ? job.source : job.part.name;
-  d.subtitle = fmt::format("Section across the slide, looking from the front end; {}",
-                           u == Units::Inch ? "dimensions in inches" : "dimensions in mm");
-  const SectionRegion stock = SectionRegion::from_ring(add_stock(d, job));
-  const double left = d.stock_min.x, right = d.stock_max.x, height = -d.stock_min.z;
+namespace {
 
-  // What each operation removes: the sweep of its passes, inside the stock,
-  // less what the operations before it removed.
-  const double above = 0.5 * t.depth;  // tools drawn up past the top face
+// What each operation removes: the sweep of its passes, inside the stock,
+// less what the operations before it removed. `above`: how far the tools are
+// drawn up past the top face.
+void add_removed_regions(Drawing& d, const Plan& plan, const SectionRegion& stock, double above) {
   SectionRegion removed_before;
   int index = 0;
   for (const auto& op : plan.operations) {
-    const Tool* tool = find_tool(job, op.tool);
+    const Tool* tool = find_tool(plan.job, op.tool);
     if (!tool) continue;
     std::vector<Ring> silhouettes;
     silhouettes.reserve(op.passes.size());
@@ -97,10 +89,12 @@ Drawing build_drawing(const Plan& plan) {
         {RegionFill::Removed, index++, fresh.rings(),
          fmt::format("Removed by operation {}: {} (T{})", index, op.title, op.tool)});
   }
-  d.regions.push_back(
-      {RegionFill::Part, 0, {part_outline(t, left, right, height)}, "Finished part"});
+}
 
-  // The dovetail cutter at its first pass and its finishing pass.
+// The dovetail cutter at its first pass and its finishing pass, drawn up to
+// `tool_top`.
+void add_cutter_outlines(Drawing& d, const Plan& plan, double tool_top) {
+  const Job& job = plan.job;
   const Pass* first = nullptr;
   const Pass* finish = nullptr;
   for (const Pass* p : all_passes(plan)) {
@@ -109,7 +103,6 @@ Drawing build_drawing(const Plan& plan) {
     if (!first) first = p;
     if (!finish && p->role == PassRole::Finish) finish = p;
   }
-  const double tool_top = above + 0.25 * t.depth;
   for (const Pass* p : {first, finish}) {
     if (!p) continue;
     const Tool* tool = find_tool(job, p->tool);
@@ -120,34 +113,42 @@ Drawing build_drawing(const Plan& plan) {
                                       final_pass ? "finishing" : "first cut"),
                           fmt::format("T{} p{}", p->tool, p->number)});
   }
+}
 
-  // The pins of the last checkpoint, in the finished section.
-  if (job.gauge) {
-    const double pin = job.gauge->pin_diameter;
-    const auto& r = plan.final_reading;
-    std::vector<PinPlacement> placed;
-    for (Side side : {Side::Left, Side::Right})
-      if (t.flank(side).angled) placed.push_back(place_pin(t, side, pin));
-    for (const auto& p : placed) d.pins.push_back({p.center, pin});
-    d.pin_label =
-        fmt::format("Pin{} {} dia, reading {} {}", placed.size() > 1 ? "s" : "",
-                    length_text(pin, u), length_text(r.value, u), reading_words(r.method));
-    double from = 0, to = 0;
-    if (placed.size() == 2) {
-      from = placed[0].measuring_edge_x;
-      to = placed[1].measuring_edge_x;
-    } else if (placed.size() == 1) {
-      const Flank& square = t.left.angled ? t.right : t.left;
-      from = square.base.x;
-      to = placed[0].measuring_edge_x;
-    }
-    if (from > to) std::swap(from, to);
-    const double z = placed.empty() ? 0 : placed[0].center.z;
-    d.dimensions.push_back(
-        {DimensionKind::Horizontal, {from, z}, {to, z}, 0, 0, 0, r.value, length_text(r.value, u)});
+// The pins of the last checkpoint in the finished section, and the reading
+// over (or between) them.
+void add_pins(Drawing& d, const Plan& plan, const Gauge& gauge) {
+  const Units u = plan.job.units;
+  const auto& t = plan.target;
+  const double pin = gauge.pin_diameter;
+  const auto& r = plan.final_reading;
+  std::vector<PinPlacement> placed;
+  for (Side side : {Side::Left, Side::Right})
+    if (t.flank(side).angled) placed.push_back(place_pin(t, side, pin));
+  for (const auto& p : placed) d.pins.push_back({p.center, pin});
+  d.pin_label = fmt::format("Pin{} {} dia, reading {} {}", placed.size() > 1 ? "s" : "",
+                            length_text(pin, u), length_text(r.value, u), reading_words(r.method));
+  double from = 0, to = 0;
+  if (placed.size() == 2) {
+    from = placed[0].measuring_edge_x;
+    to = placed[1].measuring_edge_x;
+  } else if (placed.size() == 1) {
+    const Flank& square = t.left.angled ? t.right : t.left;
+    from = square.base.x;
+    to = placed[0].measuring_edge_x;
   }
+  if (from > to) std::swap(from, to);
+  const double z = placed.empty() ? 0 : placed[0].center.z;
+  d.dimensions.push_back(
+      {DimensionKind::Horizontal, {from, z}, {to, z}, 0, 0, 0, r.value, length_text(r.value, u)});
+}
 
-  // Widths, depth and angle.
+// The widths at the base and top planes, the depth and the flank angle.
+void add_section_dimensions(Drawing& d, const Plan& plan, double tool_top) {
+  const Job& job = plan.job;
+  const Units u = job.units;
+  const auto& t = plan.target;
+  const double right = d.stock_max.x, height = -d.stock_min.z;
   const double base_z = -t.depth;
   d.dimensions.push_back({DimensionKind::Horizontal, t.left.base, t.right.base,
                           -(height - t.depth) - 0.12 * height, 0, 0, t.width_bottom(),
@@ -172,6 +173,27 @@ Drawing build_drawing(const Plan& plan) {
   d.dimensions.push_back({DimensionKind::Angle, f.base, f.top, arc, std::min(floor_deg, flank_deg),
                           std::max(floor_deg, flank_deg), t.angle,
                           fmt::format("{:g}\u00b0", t.angle)});
+}
+
+}  // namespace
+
+Drawing build_drawing(const Plan& plan) {
+  const Job& job = plan.job;
+  const auto& t = plan.target;
+  Drawing d;
+  d.title = job.part.name.empty() ? job.source : job.part.name;
+  d.subtitle = fmt::format("Section across the slide, looking from the front end; {}",
+                           job.units == Units::Inch ? "dimensions in inches" : "dimensions in mm");
+  const SectionRegion stock = SectionRegion::from_ring(add_stock(d, job));
+  const double left = d.stock_min.x, right = d.stock_max.x, height = -d.stock_min.z;
+  const double above = 0.5 * t.depth;  // tools drawn up past the top face
+  add_removed_regions(d, plan, stock, above);
+  d.regions.push_back(
+      {RegionFill::Part, 0, {part_outline(t, left, right, height)}, "Finished part"});
+  const double tool_top = above + 0.25 * t.depth;
+  add_cutter_outlines(d, plan, tool_top);
+  if (job.gauge) add_pins(d, plan, *job.gauge);
+  add_section_dimensions(d, plan, tool_top);
   return d;
 }
 
