@@ -97,7 +97,8 @@ TEST(plan_note_text, allowances_name_the_floor_and_the_last_cut_only_where_there
             "Allowances: end mill leaves 0.0100 in per side and 0.0050 in on the floor; the "
             "dovetail cutter leaves 0.0080 in per flank for finishing, then a semi-finish pass "
             "leaves 0.0020 in.");
-  EXPECT_EQ(note_text(AllowanceNote{.rough = 0.25, .finish = 0.1}, Units::Millimetre),
+  EXPECT_EQ(note_text(AllowanceNote{.rough = 0.25, .floor = std::nullopt, .finish = 0.1},
+                      Units::Millimetre),
             "Allowances: end mill leaves 0.250 mm per side; the dovetail cutter leaves 0.100 mm "
             "per flank for finishing.");
   // A female floor left with nothing on it still says so.
@@ -131,6 +132,27 @@ TEST(plan_note_text, each_warning_kind_has_its_words) {
             "help");
   EXPECT_EQ(warning_text(NoGaugeWarning{}, Units::Millimetre),
             "no [gauge] pin_diameter: the checkpoints give widths but no pin readings");
+}
+
+TEST(plan_note_text, operations_are_titled_by_kind_and_the_square_walls_side) {
+  Operation op;
+  op.kind = OperationKind::FinishSquareWall;
+  Pass wall;
+  wall.side = Side::Left;
+  op.passes = {wall};
+  EXPECT_EQ(operation_title(op), "Finish the square left wall");
+  op.passes.front().side = Side::Right;
+  EXPECT_EQ(operation_title(op), "Finish the square right wall");
+  op = Operation{};
+  op.kind = OperationKind::Undercut;
+  EXPECT_EQ(operation_title(op), "Undercut and finish the flanks");
+  op.corrective = true;
+  EXPECT_EQ(operation_title(op), "Trim the flanks to size");
+  // The dovetail cutter never comes down inside the stock, whatever the ends.
+  for (Ends ends : {Ends::Open, Ends::FrontOpen})
+    EXPECT_NE(entry_words(op, ends).find("never plunges"), std::string::npos);
+  op.kind = OperationKind::RoughSlot;
+  EXPECT_NE(entry_words(op, Ends::FrontOpen).find("leaves upward"), std::string::npos);
 }
 
 TEST(plan_note_text, every_kind_has_its_own_json_word) {

@@ -7,6 +7,7 @@
 #include <dovetailor/drawing/drawing.hpp>
 #include <dovetailor/geometry/pin_gauge.hpp>
 #include <dovetailor/geometry/section_region.hpp>
+#include <dovetailor/report/plan_note_text.hpp>
 
 namespace dovetailor {
 namespace {
@@ -87,7 +88,7 @@ void add_removed_regions(Drawing& d, const Plan& plan, const SectionRegion& stoc
     removed_before = unite(removed_before, inside);
     d.regions.push_back(
         {RegionFill::Removed, index++, fresh.rings(),
-         fmt::format("Removed by operation {}: {} (T{})", index, op.title, op.tool)});
+         fmt::format("Removed by operation {}: {} (T{})", index, operation_title(op), op.tool)});
   }
 }
 

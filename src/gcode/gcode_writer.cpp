@@ -8,6 +8,7 @@
 #include <dovetailor/base/error.hpp>
 #include <dovetailor/gcode/gcode_writer.hpp>
 #include <dovetailor/gcode/program_text.hpp>
+#include <dovetailor/report/plan_note_text.hpp>
 
 #include "gcode_writer_detail.hpp"
 
@@ -132,7 +133,7 @@ class Writer {
         fmt::format("{} {} dia", t.kind == ToolKind::EndMill ? "end mill" : "dovetail cutter",
                     detail::ProgramShow{units_}.len(t.diameter));
     for (const auto& block : tool_change_blocks(post_, t.number, what)) text_.add(block);
-    comment(op.title);
+    comment(operation_title(op));
     // The tool change may have moved X and Y: the next move writes them again.
     Block up{.words = {{'G', 0}, {'Z', plan_.safe_z}}, .comment = "to the safe height"};
     if (post_.tool_length_offset) {

@@ -1,8 +1,6 @@
 #include <algorithm>
 #include <cmath>
 
-#include <fmt/format.h>
-
 #include <dovetailor/shop/cutting_data.hpp>
 
 #include "planner_detail.hpp"
@@ -39,8 +37,7 @@ std::vector<double> spaced(double first, double last, double max_step) {
   return x;
 }
 
-Operation start_operation(const PlanContext& ctx, OperationKind kind, std::string title,
-                          double radial_step) {
+Operation start_operation(const PlanContext& ctx, OperationKind kind, double radial_step) {
   const Tool& tool = ctx.end_mill;
   const CuttingData data =
       cutting_data(tool, ctx.material, ctx.job.machine, {.radial_step = radial_step});
@@ -48,14 +45,9 @@ Operation start_operation(const PlanContext& ctx, OperationKind kind, std::strin
   Operation op;
   op.kind = kind;
   op.tool = tool.number;
-  op.title = std::move(title);
   op.rpm = data.rpm;
   op.feed = data.feed;
   op.finish_feed = data.feed;
-  op.entry = ctx.job.dovetail.ends == Ends::FrontOpen
-                 ? "enters at depth from the open front end, feeding along Y; leaves upward at "
-                   "the closed end, or steps over there and cuts on the way out"
-                 : "enters at depth from the front end, feeding along Y; leaves past the far end";
   return op;
 }
 
@@ -86,7 +78,7 @@ Operation rough_slot(PlanContext& ctx) {
   const double right_wall = s.right.top.x - ctx.rough_allowance;
   const double lateral = std::max(0.0, (right_wall - left_wall) / 2 - r);
   const double middle = (left_wall + right_wall) / 2;
-  Operation op = start_operation(ctx, OperationKind::RoughSlot, "Rough the slot", 0);
+  Operation op = start_operation(ctx, OperationKind::RoughSlot, 0);
   std::vector<double> xs = {middle};
   if (lateral > 1e-9) {
     for (double d : spaced(0, lateral, stepover_fraction * ctx.end_mill.diameter)) {
@@ -122,7 +114,7 @@ Operation rough_slot(PlanContext& ctx) {
 Operation rough_shoulders(PlanContext& ctx) {
   const auto& s = ctx.target;
   const double r = ctx.end_mill.diameter / 2;
-  Operation op = start_operation(ctx, OperationKind::RoughShoulders, "Rough the shoulders",
+  Operation op = start_operation(ctx, OperationKind::RoughShoulders,
                                  stepover_fraction * ctx.end_mill.diameter);
   const double stock_left = -ctx.job.dovetail.center - ctx.job.stock.width / 2;
   const double stock_right = -ctx.job.dovetail.center + ctx.job.stock.width / 2;
@@ -177,9 +169,7 @@ std::optional<Operation> finish_square_wall(PlanContext& ctx) {
   const bool tool_inside = ctx.female();
   const double x = tool_inside ? (right ? wall.base.x - r : wall.base.x + r)
                                : (right ? wall.base.x + r : wall.base.x - r);
-  Operation op = start_operation(ctx, OperationKind::FinishSquareWall,
-                                 fmt::format("Finish the square {} wall", right ? "right" : "left"),
-                                 ctx.rough_allowance);
+  Operation op = start_operation(ctx, OperationKind::FinishSquareWall, ctx.rough_allowance);
   const bool plus_x = tool_inside == right;
   const Along along = direction_for(plus_x, ctx.mode);
   // The roughing ran on the line the rough allowance away from the wall.

@@ -49,7 +49,7 @@ Plan corrective_plan(const Plan& plan, const Checkpoint& c, double stock, double
   const double error = stock - c.remaining_per_flank;
   const Operation& undercut = undercut_of(plan);
   Operation op = undercut;
-  op.title = "Trim the flanks to size";
+  op.corrective = true;
   op.passes.clear();
   // The plan's last cut per flank: the radial step of its finishing pass.
   std::vector<const Pass*> finishes;

@@ -208,7 +208,6 @@ Operation start_undercut(PlanContext& ctx, double step_limit) {
   Operation op;
   op.kind = OperationKind::Undercut;
   op.tool = cutter.number;
-  op.title = "Undercut and finish the flanks";
   const CuttingData rough =
       cutting_data(cutter, ctx.material, ctx.job.machine, {.radial_step = step_limit});
   for (const auto& w : rough.warnings) ctx.warnings.push_back(CuttingDataWarning{cutter.number, w});
@@ -219,11 +218,6 @@ Operation start_undercut(PlanContext& ctx, double step_limit) {
   op.rpm = rough.rpm;
   op.feed = rough.feed;
   op.finish_feed = std::min(rough.feed, finish.feed) * 0.5;
-  op.entry = ctx.job.dovetail.ends == Ends::FrontOpen
-                 ? "enters at cutting depth from the open front end, outside the stock; backs out "
-                   "the same way (never plunges, never rises under the overhang)"
-                 : "enters at cutting depth from the front end, outside the stock; leaves past the "
-                   "far end (never plunges, never rises under the overhang)";
   return op;
 }
 

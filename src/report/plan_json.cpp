@@ -50,11 +50,12 @@ nlohmann::json pass_json(const Pass& p, Units u) {
   return q;
 }
 
-nlohmann::json operation_json(const Operation& op, Units u) {
+nlohmann::json operation_json(const Plan& plan, const Operation& op) {
+  const Units u = plan.job.units;
   nlohmann::json o;
-  o["title"] = op.title;
+  o["title"] = operation_title(op);
   o["tool"] = op.tool;
-  o["entry"] = op.entry;
+  o["entry"] = entry_words(op, plan.job.dovetail.ends);
   // From the passes, as the text writers state them: the highest roughing
   // and finishing feed (either one when the operation has only one kind).
   const detail::PassFeeds f = detail::pass_feeds(detail::passes_of(op));
@@ -183,7 +184,7 @@ std::string plan_json(const Plan& plan) {
   j["final_reading"] = len(plan.final_reading.value, u);
   j["safe_z"] = len(plan.safe_z, u);
   auto& ops = j["operations"] = nlohmann::json::array();
-  for (const auto& op : plan.operations) ops.push_back(operation_json(op, u));
+  for (const auto& op : plan.operations) ops.push_back(operation_json(plan, op));
   auto& cps = j["checkpoints"] = nlohmann::json::array();
   for (const auto& c : plan.checkpoints) cps.push_back(checkpoint_json(plan, c));
   j["notes"] = note_texts(plan);

@@ -129,6 +129,36 @@ std::string warning_text(const PlanWarning& warning, Units u) {
       warning);
 }
 
+std::string operation_title(const Operation& op) {
+  if (op.corrective) return "Trim the flanks to size";
+  switch (op.kind) {
+    case OperationKind::RoughSlot:
+      return "Rough the slot";
+    case OperationKind::RoughShoulders:
+      return "Rough the shoulders";
+    case OperationKind::FinishSquareWall: {
+      const bool left = !op.passes.empty() && op.passes.front().side == Side::Left;
+      return fmt::format("Finish the square {} wall", left ? "left" : "right");
+    }
+    case OperationKind::Undercut:
+      return "Undercut and finish the flanks";
+  }
+  return "";
+}
+
+std::string entry_words(const Operation& op, Ends ends) {
+  const bool front_open = ends == Ends::FrontOpen;
+  if (op.kind == OperationKind::Undercut)
+    return front_open ? "enters at cutting depth from the open front end, outside the stock; "
+                        "backs out the same way (never plunges, never rises under the overhang)"
+                      : "enters at cutting depth from the front end, outside the stock; leaves "
+                        "past the far end (never plunges, never rises under the overhang)";
+  return front_open ? "enters at depth from the open front end, feeding along Y; leaves upward at "
+                      "the closed end, or steps over there and cuts on the way out"
+                    : "enters at depth from the front end, feeding along Y; leaves past the far "
+                      "end";
+}
+
 std::vector<std::string> note_texts(const Plan& plan) {
   std::vector<std::string> out;
   for (const auto& n : plan.notes) out.push_back(note_text(n, plan.job.units));

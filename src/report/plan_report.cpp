@@ -152,8 +152,9 @@ std::string pass_table(const Plan& plan, const Operation& op, int number, const 
   const auto row = [](const auto&... cells) {
     return fmt::format("  {:>4} {:<6} {:<6} {:>8} {:>8} {:>7} {:>7} {:>6} {:<5} {:>7}\n", cells...);
   };
-  std::string out = fmt::format("Operation {}: {} with T{}\n", number, op.title, op.tool);
-  out += wrap(fmt::format("Entry: {}.", op.entry), "  ", "    ");
+  std::string out =
+      fmt::format("Operation {}: {} with T{}\n", number, operation_title(op), op.tool);
+  out += wrap(fmt::format("Entry: {}.", entry_words(op, plan.job.dovetail.ends)), "  ", "    ");
   out += row("Pass", "Role", "Side", "X", "Z", "Step", "Left", "Feed", "Mode", "Bend");
   bool taper = false;
   for (const auto& p : op.passes) {

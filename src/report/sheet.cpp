@@ -295,14 +295,15 @@ Sheet build_sheet(const Plan& plan, const SheetOptions& options) {
   const double z_zero = dials ? dials->datum.shim : 0;
   for (const auto& op : plan.operations) {
     OperationTable table;
-    table.title = fmt::format("Operation {}: {} with T{}", ++op_number, op.title, op.tool);
+    table.title =
+        fmt::format("Operation {}: {} with T{}", ++op_number, operation_title(op), op.tool);
     if (const Tool* tool = find_tool(job, op.tool)) {
       const detail::PassFeeds f = detail::pass_feeds(detail::passes_of(op));
       table.intro.push_back(fmt::format("{}; {}; {}.", tool_words(*tool, s),
                                         detail::rpm_words(f, "rev/min"),
                                         detail::feed_words(f, feed_num, s.feed_unit())));
     }
-    table.intro.push_back(fmt::format("Entry: {}.", op.entry));
+    table.intro.push_back(fmt::format("Entry: {}.", entry_words(op, plan.job.dovetail.ends)));
     if (dials && op.tool != tool_in_spindle) {
       table.intro.push_back(fmt::format(
           "Change to T{}; touch it off on the top face and zero the Z dial (set-up step).",

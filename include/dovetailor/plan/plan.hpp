@@ -91,8 +91,9 @@ enum class OperationKind { RoughSlot, RoughShoulders, FinishSquareWall, Undercut
 struct Operation {
   OperationKind kind = OperationKind::RoughSlot;
   int tool = 0;
-  std::string title;  // "Rough the slot", "Undercut the flanks", ...
-  std::string entry;  // how the tool enters the work, in words
+  // The trim's corrective passes (trim.hpp): an undercut operation that
+  // takes the flanks from what was measured to size.
+  bool corrective = false;
   double rpm = 0;
   double feed = 0;         // roughing feed, mm/min
   double finish_feed = 0;  // mm/min

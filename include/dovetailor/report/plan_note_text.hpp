@@ -16,6 +16,11 @@ namespace dovetailor {
 std::string note_text(const PlanNote& note, Units units);
 std::string warning_text(const PlanWarning& warning, Units units);
 
+// An operation's title ("Rough the slot", "Undercut and finish the flanks",
+// "Trim the flanks to size", ...) and how its tool enters the work, in words.
+std::string operation_title(const Operation& op);
+std::string entry_words(const Operation& op, Ends ends);
+
 // All of the plan's notes, and all of its warnings, in words in the job's units.
 std::vector<std::string> note_texts(const Plan& plan);
 std::vector<std::string> warning_texts(const Plan& plan);
