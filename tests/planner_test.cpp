@@ -126,6 +126,32 @@ TEST(planner, tapered_gib_checkpoints_say_where_the_reading_holds_and_how_it_run
   EXPECT_EQ(format_plan(parallel).find("Tapered gib"), std::string::npos);
 }
 
+// The JSON plan gives each note and warning twice: in words, and as data
+// with its kind and its figures in the job's units (plan_report.hpp).
+TEST(planner, json_plan_gives_the_notes_as_words_and_as_data) {
+  const Plan p = plan(sample("fixture-slide-female"));
+  const std::string json = plan_json(p);
+  std::size_t kinds = 0;
+  for (auto at = json.find("\"kind\": "); at != std::string::npos;
+       at = json.find("\"kind\": ", at + 1))
+    ++kinds;
+  EXPECT_EQ(kinds, p.notes.size() + p.warnings.size());
+  const auto* allowances = [&]() -> const AllowanceNote* {
+    for (const auto& n : p.notes)
+      if (const auto* a = std::get_if<AllowanceNote>(&n)) return a;
+    return nullptr;
+  }();
+  ASSERT_NE(allowances, nullptr);
+  ASSERT_TRUE(allowances->floor.has_value());  // a female's floor
+  EXPECT_NE(json.find("\"kind\": \"allowances\""), std::string::npos) << json;
+  // The sample leaves the planner's default, 0.010 in per side.
+  EXPECT_NEAR(from_mm(allowances->rough, Units::Inch), 0.010, 1e-12);
+  EXPECT_NE(json.find("\"rough_allowance\": 0.01\n"), std::string::npos) << json;
+  EXPECT_NE(json.find("\"notes\": ["), std::string::npos);
+  EXPECT_NE(json.find("\"note_data\": ["), std::string::npos);
+  EXPECT_NE(json.find("\"warning_data\": ["), std::string::npos);
+}
+
 // A male with a tapered gib on its right flank: the flank moves in (+X to
 // -X), the tongue narrows toward the back and the reading over pins drops by
 // 1 / (N sin a) per unit length; the one-pin reading from the left stock
