@@ -75,7 +75,7 @@ double Rs274BlockExecutor::feed_for(const PathSegment& path, const std::string& 
     if (!b_.has('f') || word('f').value <= 0)
       fail(motion_column_, code,
            "in inverse time mode (G93) every feed move needs its own F greater than 0");
-    return detail::path_length(path) * word('f').value;
+    return path_length(path) * word('f').value;
   }
   if (st_.feed_mm_per_min <= 0)
     fail(motion_column_, code, code + " needs a feed rate: give F greater than 0 first");
