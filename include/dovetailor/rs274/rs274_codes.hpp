@@ -69,7 +69,7 @@ enum class GCode : int {
   CompensationRight = 420,   // G42
   LengthOffset = 430,        // G43
   LengthOffsetCancel = 490,  // G49
-  MachineCoordinates = 530,  // G53
+  MachineCoordinates = 530,  // G53   (3.5.12)
   System1 = 540,             // G54
   System2 = 550,             // G55
   System3 = 560,             // G56
@@ -82,7 +82,7 @@ enum class GCode : int {
   ExactPath = 610,           // G61
   ExactStop = 611,           // G61.1
   Continuous = 640,          // G64
-  CycleCancel = 800,         // G80
+  CycleCancel = 800,         // G80   (3.5.15)
   Drill = 810,               // G81   (3.5.16)
   DrillDwell = 820,          // G82
   PeckDrill = 830,           // G83
@@ -98,7 +98,7 @@ enum class GCode : int {
   AxisOffsetClear = 921,     // G92.1
   AxisOffsetSuspend = 922,   // G92.2
   AxisOffsetRestore = 923,   // G92.3
-  InverseTime = 930,         // G93
+  InverseTime = 930,         // G93   (3.5.19)
   UnitsPerMinute = 940,      // G94
   ReturnToOldZ = 980,        // G98
   ReturnToR = 990,           // G99
