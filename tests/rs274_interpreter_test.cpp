@@ -183,9 +183,9 @@ TEST(rs274_interpreter, each_modal_group_takes_one_code_per_line) {
       {"G43 H0 G49", "G49"},    {"G98 G99", "G99"}, {"G54 G59.3", "G59.3"}, {"G4 P1 G53", "G53"},
       {"G92.1 G92.2", "G92.2"}, {"M48 M49", "M49"}, {"M7 M9", "M9"},
   };
-  for (const auto& [program, second] : same) {
-    SCOPED_TRACE(program);
-    expect_input_error([&] { run_program(program); }, {second, "same modal group"});
+  for (const auto& c : same) {
+    SCOPED_TRACE(c.first);
+    expect_input_error([&] { run_program(c.first); }, {c.second, "same modal group"});
   }
 }
 
