@@ -13,6 +13,16 @@ namespace dovetailor {
 using detail::GGroup;
 using detail::MGroup;
 
+namespace {
+
+// Anything beyond 10 km is a typing error; refusing it keeps every
+// coordinate the simulation sees finite.
+constexpr double longest_length_mm = 1e7;
+// T, D and H take tool numbers from 0 up to this.
+constexpr int highest_tool_number = 1 << 30;
+
+}  // namespace
+
 void Rs274BlockExecutor::run() {
   classify();
   decide_motion();
@@ -164,7 +174,7 @@ void Rs274BlockExecutor::check_letters() const {
 
 double Rs274BlockExecutor::stored_length(int number, int column, const std::string& code) const {
   const double v = mm(in_.parameters_.get(number));
-  if (std::fabs(v) > 1e7)
+  if (std::fabs(v) > longest_length_mm)
     fail(column, code,
          "parameter #" + std::to_string(number) + " is out of range (more than 10 km)");
   return v;
@@ -172,7 +182,7 @@ double Rs274BlockExecutor::stored_length(int number, int column, const std::stri
 
 double Rs274BlockExecutor::length(Word letter) const {
   const double v = mm(word(letter).value);
-  if (std::fabs(v) > 1e7)
+  if (std::fabs(v) > longest_length_mm)
     fail(word(letter).column, word_name(letter), "value is out of range (more than 10 km)");
   return v;
 }
@@ -201,7 +211,7 @@ void Rs274BlockExecutor::feed_and_speed() {
 
 void Rs274BlockExecutor::tool_and_spindle() {
   if (b_.has(Word::T))
-    st_.selected_tool = whole(Word::T, 0, 1 << 30, "T needs a tool number, 0 or more");
+    st_.selected_tool = whole(Word::T, 0, highest_tool_number, "T needs a tool number, 0 or more");
   if (given(MGroup::ToolChange)) {
     st_.tool = st_.selected_tool;
     in_.push(b_.line, ToolChange{st_.tool});
@@ -284,7 +294,7 @@ void Rs274BlockExecutor::compensation() {
     fail(column, name, "cutter compensation works only in the XY plane (G17)");
   int number = st_.tool;
   if (b_.has(Word::D)) {
-    number = whole(Word::D, 0, 1 << 30, "D needs a tool number, 0 or more");
+    number = whole(Word::D, 0, highest_tool_number, "D needs a tool number, 0 or more");
   } else if (number == 0) {
     fail(column, name,
          name +
@@ -304,7 +314,7 @@ void Rs274BlockExecutor::length_offset() {
   if (on) {
     if (!b_.has(Word::H))
       fail(given(GGroup::LengthOffset)->column, "G43", "G43 needs H, the tool whose length to use");
-    const int number = whole(Word::H, 0, 1 << 30, "H needs a tool number, 0 or more");
+    const int number = whole(Word::H, 0, highest_tool_number, "H needs a tool number, 0 or more");
     length = tool_for(Word::H, number, "G43").length_mm;
   }
   const double shift = st_.length_offset_mm - length;

@@ -192,6 +192,13 @@ PlaneWords plane_words(Plane plane) {
   return {{Word::X, Word::Y}, {Word::I, Word::J}, Word::K, "XY (G17)"};
 }
 
+// How far the radii to an arc's start and end may differ, and R may fall
+// short of half the chord: the NIST interpreter's 0.0005 in or 0.005 mm
+// (from memory), in the program's units.
+double arc_radius_tolerance_mm(Units units) {
+  return units == Units::Inch ? to_mm(0.0005, Units::Inch) : 0.005;
+}
+
 }  // namespace
 
 void Rs274BlockExecutor::check_arc_words(const std::string& code) const {
@@ -224,8 +231,7 @@ detail::FoundCentre Rs274BlockExecutor::arc_centre(const Point3& start, const Po
                                                    ArcDirection direction) const {
   const Plane pl = st_.plane;
   const PlaneWords p = plane_words(pl);
-  // Radius tolerance of the NIST interpreter: 0.0005 in or 0.005 mm (from memory).
-  const double tolerance = st_.program_units == Units::Inch ? to_mm(0.0005, Units::Inch) : 0.005;
+  const double tolerance = arc_radius_tolerance_mm(st_.program_units);
   if (b_.has(Word::R))
     return detail::centre_from_radius(start, end, length(Word::R), direction, pl, tolerance);
   return detail::centre_from_offsets(start, end, length_or(p.offsets[0], 0.0),
