@@ -152,22 +152,24 @@ void print_text(const PinsCase& c) {
     fmt::print("  {:<34}{}\n", label, value);
   };
   row(female ? "Width at base plane (floor)" : "Width at base plane (root)",
-      length(s.width_bottom(), u));
+      fmt::format("{}", shown(s.width_bottom(), u)));
   row(female ? "Width at top plane (mouth)" : "Width at top plane (top face)",
-      length(s.width_top(), u));
-  row("Depth", length(s.depth, u));
+      fmt::format("{}", shown(s.width_top(), u)));
+  row("Depth", fmt::format("{}", shown(s.depth, u)));
   if (s.gib_side)
     row(fmt::format("Gib allowance ({} flank)", *s.gib_side == Side::Left ? "left" : "right"),
-        length(s.gib_allowance, u) + " (included above)");
+        fmt::format("{}", shown(s.gib_allowance, u)) + " (included above)");
   fmt::print("\n");
-  row(method_text(r), fmt::format("{}   with {} pin{}", length(r.value + c.aim, u),
-                                  length(c.pin, u), r.pins == 1 ? "" : "s"));
-  row("  good from", fmt::format("{} to {}", number(r.value + c.tolerance.lower, u),
-                                 length(r.value + c.tolerance.upper, u)));
-  if (c.aim != 0) row("  nominal (the widths above)", length(r.value, u) + "; aim at the middle");
+  row(method_text(r), fmt::format("{}   with {} pin{}", shown(r.value + c.aim, u), shown(c.pin, u),
+                                  r.pins == 1 ? "" : "s"));
+  row("  good from", fmt::format("{:n} to {}", shown(r.value + c.tolerance.lower, u),
+                                 shown(r.value + c.tolerance.upper, u)));
+  if (c.aim != 0)
+    row("  nominal (the widths above)",
+        fmt::format("{}", shown(r.value, u)) + "; aim at the middle");
   const double h = contact_height(c.pin, s.angle);
   row("Pin touches the flank at", fmt::format("{} above the base ({:.0f} % of the flank)",
-                                              length(h, u), 100 * h / (s.depth - s.chamfer)));
+                                              shown(h, u), 100 * h / (s.depth - s.chamfer)));
   row("Pin constant 1 + cot(a/2)", fmt::format("{:.7f}", pin_constant(s.angle)));
   if (c.job && !female) {
     for (Side side : {Side::Left, Side::Right}) {
@@ -175,15 +177,15 @@ void print_text(const PinsCase& c) {
       const bool left = side == Side::Left;
       const double face = left ? stock_right_x(*c.job) : stock_left_x(*c.job);
       row(fmt::format("{} stock face to {} pin", left ? "Right" : "Left", left ? "left" : "right"),
-          length(reference_reading(s, side, c.pin, face), u));
+          fmt::format("{}", shown(reference_reading(s, side, c.pin, face), u)));
     }
   }
   const auto advice = advise_pins(s, c.corner_radius, u, c.stock);
   fmt::print("\nCommon pin sizes that fit (* = contact in the middle third of the flank):\n");
   if (advice.empty()) fmt::print("  none: the flank is too short for the common sizes\n");
   for (const auto& a : advice)
-    fmt::print("  {} {:>10}   touches at {}\n", a.middle_third ? '*' : ' ', length(a.diameter, u),
-               length(a.contact_height, u));
+    fmt::print("  {} {:>10}   touches at {}\n", a.middle_third ? '*' : ' ', shown(a.diameter, u),
+               shown(a.contact_height, u));
 }
 
 void print_json(const PinsCase& c) {
@@ -196,22 +198,22 @@ void print_json(const PinsCase& c) {
   j["angle"] = s.angle;
   j["method"] = method_key(r);
   j["pins"] = r.pins;
-  j["pin_diameter"] = json_length(c.pin, u);
-  j["reading"] = json_length(r.value + c.aim, u);
-  j["reading_nominal"] = json_length(r.value, u);
-  j["reading_min"] = json_length(r.value + c.tolerance.lower, u);
-  j["reading_max"] = json_length(r.value + c.tolerance.upper, u);
-  j["width_bottom"] = json_length(s.width_bottom(), u);
-  j["width_top"] = json_length(s.width_top(), u);
-  j["depth"] = json_length(s.depth, u);
-  j["gib_allowance"] = json_length(s.gib_allowance, u);
-  j["contact_height"] = json_length(contact_height(c.pin, s.angle), u);
+  j["pin_diameter"] = length_value(c.pin, u);
+  j["reading"] = length_value(r.value + c.aim, u);
+  j["reading_nominal"] = length_value(r.value, u);
+  j["reading_min"] = length_value(r.value + c.tolerance.lower, u);
+  j["reading_max"] = length_value(r.value + c.tolerance.upper, u);
+  j["width_bottom"] = length_value(s.width_bottom(), u);
+  j["width_top"] = length_value(s.width_top(), u);
+  j["depth"] = length_value(s.depth, u);
+  j["gib_allowance"] = length_value(s.gib_allowance, u);
+  j["contact_height"] = length_value(contact_height(c.pin, s.angle), u);
   j["pin_constant"] = pin_constant(s.angle);
   j["problems"] = pin_problems(s, c.pin, c.corner_radius, u, c.stock);
   auto& advice = j["pin_advice"] = nlohmann::json::array();
   for (const auto& a : advise_pins(s, c.corner_radius, u, c.stock))
-    advice.push_back({{"diameter", json_length(a.diameter, u)},
-                      {"contact_height", json_length(a.contact_height, u)},
+    advice.push_back({{"diameter", length_value(a.diameter, u)},
+                      {"contact_height", length_value(a.contact_height, u)},
                       {"middle_third", a.middle_third}});
   fmt::print("{}\n", j.dump(2));
 }

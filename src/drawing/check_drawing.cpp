@@ -4,7 +4,7 @@
 
 #include <fmt/format.h>
 
-#include <dovetailor/base/length_text.hpp>
+#include <dovetailor/base/length.hpp>
 #include <dovetailor/drawing/check_drawing.hpp>
 #include <dovetailor/geometry/dovetail_section.hpp>
 
@@ -48,7 +48,7 @@ Drawing build_check_drawing(const CheckReport& report, const Job& job, std::size
     throw std::out_of_range("build_check_drawing: no such station");
   const StationResult& s = report.stations[station];
   const Units u = job.units;
-  const auto show = [u](double mm) { return length_text(mm, u); };
+  const auto show = [u](double mm) { return fmt::format("{}", shown(mm, u)); };
   Drawing d;
   d.title = fmt::format("{}: {} as simulated", job.part.name.empty() ? job.source : job.part.name,
                         report.program);

@@ -3,7 +3,7 @@
 
 #include <fmt/format.h>
 
-#include <dovetailor/base/length_text.hpp>
+#include <dovetailor/base/length.hpp>
 #include <dovetailor/drawing/drawing.hpp>
 #include <dovetailor/geometry/pin_gauge.hpp>
 #include <dovetailor/geometry/section_region.hpp>
@@ -129,9 +129,8 @@ Drawing build_drawing(const Plan& plan) {
     for (Side side : {Side::Left, Side::Right})
       if (t.flank(side).angled) placed.push_back(place_pin(t, side, pin));
     for (const auto& p : placed) d.pins.push_back({p.center, pin});
-    d.pin_label =
-        fmt::format("Pin{} {} dia, reading {} {}", placed.size() > 1 ? "s" : "",
-                    length_text(pin, u), length_text(r.value, u), reading_words(r.method));
+    d.pin_label = fmt::format("Pin{} {} dia, reading {} {}", placed.size() > 1 ? "s" : "",
+                              shown(pin, u), shown(r.value, u), reading_words(r.method));
     double from = 0, to = 0;
     if (placed.size() == 2) {
       from = placed[0].measuring_edge_x;
@@ -143,18 +142,24 @@ Drawing build_drawing(const Plan& plan) {
     }
     if (from > to) std::swap(from, to);
     const double z = placed.empty() ? 0 : placed[0].center.z;
-    d.dimensions.push_back(
-        {DimensionKind::Horizontal, {from, z}, {to, z}, 0, 0, 0, r.value, length_text(r.value, u)});
+    d.dimensions.push_back({DimensionKind::Horizontal,
+                            {from, z},
+                            {to, z},
+                            0,
+                            0,
+                            0,
+                            r.value,
+                            fmt::format("{}", shown(r.value, u))});
   }
 
   // Widths, depth and angle.
   const double base_z = -t.depth;
   d.dimensions.push_back({DimensionKind::Horizontal, t.left.base, t.right.base,
                           -(height - t.depth) - 0.12 * height, 0, 0, t.width_bottom(),
-                          length_text(t.width_bottom(), u)});
+                          fmt::format("{}", shown(t.width_bottom(), u))});
   d.dimensions.push_back({DimensionKind::Horizontal, t.left.top, t.right.top,
                           tool_top + 0.1 * height, 0, 0, t.width_top(),
-                          length_text(t.width_top(), u)});
+                          fmt::format("{}", shown(t.width_top(), u))});
   d.dimensions.push_back({DimensionKind::Vertical,
                           {right, 0},
                           {right, base_z},
@@ -162,7 +167,7 @@ Drawing build_drawing(const Plan& plan) {
                           0,
                           0,
                           t.depth,
-                          length_text(t.depth, u)});
+                          fmt::format("{}", shown(t.depth, u))});
   const Side angled = t.left.angled ? Side::Left : Side::Right;
   const Flank& f = t.flank(angled);
   const double floor_deg = floor_direction(t, angled);

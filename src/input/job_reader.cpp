@@ -4,7 +4,7 @@
 
 #include <fmt/format.h>
 
-#include <dovetailor/base/length_text.hpp>
+#include <dovetailor/base/length.hpp>
 #include <dovetailor/geometry/dovetail_section.hpp>
 #include <dovetailor/geometry/fit.hpp>
 #include <dovetailor/geometry/pin_gauge.hpp>
@@ -325,7 +325,7 @@ class JobReader {
           t.fail("flute_length",
                  fmt::format("is shorter than the cone ({} from the tip diameter to the "
                              "diameter at this angle)",
-                             length_text(cone, job_.units)));
+                             shown(cone, job_.units)));
       }
       tool.shank_diameter = optional_positive_length(t, "shank_diameter");
       tool.stickout = optional_positive_length(t, "stickout");
@@ -605,7 +605,7 @@ class JobReader {
     const int angled = d.sides == AngledSides::Both ? 2 : 1;
     const double bottom = design_width_bottom(d);
     const double top = width_top_from_bottom(d.type, bottom, d.depth, d.angle, angled);
-    const auto show = [&](double mm) { return length_text(mm, job_.units); };
+    const auto show = [&](double mm) { return fmt::format("{}", shown(mm, job_.units)); };
     if (bottom <= 0 || top <= 0)
       throw InputError(
           fmt::format("a {} dovetail {} deep at {} deg with this width has a {} of {}: the "

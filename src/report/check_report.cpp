@@ -2,7 +2,8 @@
 
 #include <fmt/format.h>
 
-#include <dovetailor/base/length_text.hpp>
+#include <dovetailor/base/caution.hpp>
+#include <dovetailor/base/length.hpp>
 #include <dovetailor/base/text_wrap.hpp>
 #include <dovetailor/report/check_report.hpp>
 
@@ -102,8 +103,7 @@ std::string_view method_words(ReadingMethod m) {
 // tables (the readings, then the shape).
 std::string format_check_report(const CheckReport& r) {
   const Units u = r.units;
-  const int dp = length_decimals(u);
-  const auto num = [&](double mm) { return fmt::format("{:.{}f}", from_mm(mm, u), dp); };
+  const auto num = [&](double mm) { return fmt::format("{:n}", shown(mm, u)); };
   const auto sym = unit_symbol(u);
   const auto para = [](std::string& out, const std::string& text, const std::string& indent) {
     for (const std::string& line : wrap_words(text, 79 - indent.size()))
@@ -190,15 +190,15 @@ std::string format_check_report(const CheckReport& r) {
                      "target at its middle",
                      sym, method_words(s0.target_reading.method),
                      num(s0.target_reading.pin_diameter), sym,
-                     signed_figure(from_mm(r.tolerance.lower, u), dp),
-                     signed_figure(from_mm(r.tolerance.upper, u), dp), sym),
+                     fmt::format("{:+n}", shown(r.tolerance.lower, u)),
+                     fmt::format("{:+n}", shown(r.tolerance.upper, u)), sym),
          "");
     out += fmt::format("  {:>9} {:>10} {:>10} {:>9}\n", "y", "reading", "target", "error");
     for (const StationResult& s : r.stations) {
       const auto& m = s.measured;
       const std::string reading = m.reading ? num(m.reading->value) : "-";
       const std::string error =
-          m.reading ? signed_figure(from_mm(m.reading->value - s.target_reading.value, u), dp)
+          m.reading ? fmt::format("{:+n}", shown(m.reading->value - s.target_reading.value, u))
                     : "-";
       out += fmt::format("  {:>9} {:>10} {:>10} {:>9}{}\n", num(s.y), reading,
                          num(s.target_reading.value), error,
@@ -207,7 +207,8 @@ std::string format_check_report(const CheckReport& r) {
     if (r.stations.size() > 1)
       para(out,
            fmt::format("reading along the slide: spread {} {}, taper {} {} per {} of length",
-                       num(r.reading_spread), sym, signed_figure(r.reading_taper, 6), sym, sym),
+                       num(r.reading_spread), sym, fmt::format("{:+}", figure(r.reading_taper, 6)),
+                       sym, sym),
            "  ");
 
     out += fmt::format("\nSection shape ({}; flank angles in degrees)\n", sym);
@@ -230,11 +231,7 @@ std::string format_check_report(const CheckReport& r) {
          "  ");
   }
   out += "\n";
-  para(out,
-       "The simulation is advice, not a guarantee: prove a new program by a dry run above the "
-       "work and in single block, secure the work and the tool, and measure with the spindle "
-       "stopped. Follow your shop's rules and the machine maker's instructions.",
-       "");
+  para(out, caution_paragraph(), "");
   return out;
 }
 

@@ -2,7 +2,7 @@
 
 #include <nlohmann/json.hpp>
 
-#include <dovetailor/base/length_text.hpp>
+#include <dovetailor/base/length.hpp>
 #include <dovetailor/report/plan_report.hpp>
 
 #include "unit_text.hpp"

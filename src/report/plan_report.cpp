@@ -2,7 +2,8 @@
 
 #include <fmt/format.h>
 
-#include <dovetailor/base/length_text.hpp>
+#include <dovetailor/base/caution.hpp>
+#include <dovetailor/base/length.hpp>
 #include <dovetailor/base/text_wrap.hpp>
 #include <dovetailor/report/plan_report.hpp>
 
@@ -31,10 +32,10 @@ std::string mode_name(MillingMode m) {
 std::string tool_line(const Tool& t, const std::vector<const Pass*>& passes, const Show& s) {
   std::string what =
       t.kind == ToolKind::EndMill
-          ? fmt::format("end mill {} dia, {} flutes, {}", s.len(t.diameter), t.flutes,
+          ? fmt::format("end mill {} dia, {} flutes, {}", shown(t.diameter, s.u), t.flutes,
                         t.material == ToolMaterial::Hss ? "HSS" : "carbide")
-          : fmt::format("dovetail cutter {} dia x {:g} deg, {} flutes, neck {}, {}",
-                        s.len(t.diameter), t.angle, t.flutes, s.num(t.neck_diameter),
+          : fmt::format("dovetail cutter {} dia x {:g} deg, {} flutes, neck {:n}, {}",
+                        shown(t.diameter, s.u), t.angle, t.flutes, shown(t.neck_diameter, s.u),
                         t.material == ToolMaterial::Hss ? "HSS" : "carbide");
   std::string line = fmt::format("  T{:<3} {}", t.number, what);
   const detail::PassFeeds f = detail::pass_feeds(passes);
@@ -72,13 +73,7 @@ std::string wrap(const std::string& text, const std::string& first, const std::s
 }  // namespace
 
 const std::string& safety_cautions() {
-  static const std::string text =
-      "CAUTION: these figures are advice, not a guarantee. Verify every program by a\n"
-      "dry run above the work and in single block. Secure the work and the tool; use\n"
-      "guards and eye protection; measure only with the spindle stopped. Dovetail\n"
-      "cutters are fragile: never plunge them, take light cuts, clear the chips, and\n"
-      "never raise one while it is under the overhang. Follow your shop's rules and\n"
-      "the machine maker's instructions.\n";
+  static const std::string text = wrap(caution_paragraph(), "", "");
   return text;
 }
 
@@ -94,21 +89,22 @@ std::string correction_rule(const Plan& plan, const Checkpoint& c) {
     const auto [low, high] = final_reading_band(plan);
     const double trim_from = female ? low : high;
     return fmt::format(
-        "Good from {} to {}. A reading {} {} means stock is left: {} has {} to cut for every "
+        "Good from {:n} to {}. A reading {} {} means stock is left: {} has {} to cut for every "
         "{} of difference; take a trim pass. A reading {} {} means the flanks are cut past "
         "size: stop and decide with the mating part.",
-        s.num(low), s.len(high), female ? "below" : "above", s.len(trim_from), each, s.len(per),
-        s.len(unit), female ? "above" : "below", s.len(female ? high : low));
+        shown(low, s.u), shown(high, s.u), female ? "below" : "above", shown(trim_from, s.u), each,
+        shown(per, s.u), shown(unit, s.u), female ? "above" : "below",
+        shown(female ? high : low, s.u));
   }
   std::string rule = fmt::format(
-      "Every {} the reading is {} than {} leaves {} less on {} ({} more when it is {}).",
-      s.len(unit), female ? "larger" : "smaller", s.num(c.expected.value), s.len(per), each,
-      s.len(per), female ? "smaller" : "larger");
+      "Every {} the reading is {} than {:n} leaves {} less on {} ({} more when it is {}).",
+      shown(unit, s.u), female ? "larger" : "smaller", shown(c.expected.value, s.u),
+      shown(per, s.u), each, shown(per, s.u), female ? "smaller" : "larger");
   // remaining(error) = remaining + error * correction_per_reading reaches zero here.
   const double at_size = c.expected.value - c.remaining_per_flank / c.correction_per_reading;
   rule +=
       fmt::format(" A reading {} {} means {} is already at size: stop, do not take the next pass.",
-                  female ? "at or above" : "at or below", s.len(at_size), each);
+                  female ? "at or above" : "at or below", shown(at_size, s.u), each);
   return rule;
 }
 
@@ -122,17 +118,18 @@ std::string format_plan(const Plan& plan) {
   line(fmt::format("Cutting plan: {}", job.part.name.empty() ? job.source : job.part.name));
   out += wrap(fmt::format("{} dovetail {:g} deg, {} angled, depth {}; all lengths in {}.",
                           female ? "Female" : "Male", t.angle,
-                          t.angled_flanks() == 2 ? "both flanks" : "one flank", s.len(t.depth),
+                          t.angled_flanks() == 2 ? "both flanks" : "one flank", shown(t.depth, s.u),
                           unit_name(job.units)),
               "", "");
   line(fmt::format("Width as cut: {} at the base plane, {} at the top plane.",
-                   s.len(t.width_bottom()), s.len(t.width_top())));
+                   shown(t.width_bottom(), s.u), shown(t.width_top(), s.u)));
   if (job.gauge)
-    out += wrap(fmt::format("Final reading {} of {}: {} (good from {} to {}).",
-                            method_words(plan.final_reading), s.len(job.gauge->pin_diameter),
-                            s.len(plan.final_reading.value), s.num(final_reading_band(plan).low),
-                            s.len(final_reading_band(plan).high)),
-                "", "");
+    out += wrap(
+        fmt::format("Final reading {} of {}: {} (good from {:n} to {}).",
+                    method_words(plan.final_reading), shown(job.gauge->pin_diameter, s.u),
+                    shown(plan.final_reading.value, s.u), shown(final_reading_band(plan).low, s.u),
+                    shown(final_reading_band(plan).high, s.u)),
+        "", "");
   line("");
   out += safety_cautions();
   line("");
@@ -149,11 +146,12 @@ std::string format_plan(const Plan& plan) {
     line(fmt::format("  {:>4} {:<6} {:<6} {:>8} {:>8} {:>7} {:>7} {:>6} {:<5} {:>7}", "Pass",
                      "Role", "Side", "X", "Z", "Step", "Left", "Feed", "Mode", "Bend"));
     for (const auto& p : op.passes) {
-      line(fmt::format("  {:>4} {:<6} {:<6} {:>8} {:>8} {:>7} {:>7} {:>6} {:<5} {:>7}", p.number,
+      line(fmt::format("  {:>4} {:<6} {:<6} {:>8} {:>8n} {:>7n} {:>7n} {:>6} {:<5} {:>7}", p.number,
                        role_name(p.role), side_name(p.side),
-                       s.num(p.x) + (p.taper_slope != 0 ? "*" : ""), s.num(p.z),
-                       s.num(p.radial_step), s.num(p.stock_left), s.feed(p.feed), mode_name(p.mode),
-                       p.deflection > 0 ? s.num(p.deflection) : "-"));
+                       fmt::format("{:n}", shown(p.x, s.u)) + (p.taper_slope != 0 ? "*" : ""),
+                       shown(p.z, s.u), shown(p.radial_step, s.u), shown(p.stock_left, s.u),
+                       s.feed(p.feed), mode_name(p.mode),
+                       p.deflection > 0 ? fmt::format("{:n}", shown(p.deflection, s.u)) : "-"));
       for (const auto& c : plan.checkpoints)
         if (c.after_pass == p.number)
           line(fmt::format("  ---- STOP: checkpoint \"{}\" (see below) ----", c.name));
@@ -176,17 +174,17 @@ std::string format_plan(const Plan& plan) {
     line("  Stop the spindle, clear the chips, deburr the edges the pins touch.");
     if (job.gauge) {
       out += wrap(fmt::format("Measure {} of {}: expect {} (final {}).", method_words(c.expected),
-                              s.len(job.gauge->pin_diameter), s.len(c.expected.value),
-                              s.len(c.final_reading.value)),
+                              shown(job.gauge->pin_diameter, s.u), shown(c.expected.value, s.u),
+                              shown(c.final_reading.value, s.u)),
                   "  ", "  ");
       if (c.reference_reading)
         line(fmt::format("  Or with one pin on the right flank, from the left stock face: {}.",
-                         s.len(*c.reference_reading)));
+                         shown(*c.reference_reading, s.u)));
     }
     line(fmt::format("  Stock left on {}: {} laterally ({} square to the flank).",
                      t.angled_flanks() == 2 ? "each flank" : "the flank",
-                     s.len(c.remaining_per_flank), s.len(c.remaining_normal)));
-    line(fmt::format("  Depth from the top face: {}.", s.len(c.expected_depth)));
+                     shown(c.remaining_per_flank, s.u), shown(c.remaining_normal, s.u)));
+    line(fmt::format("  Depth from the top face: {}.", shown(c.expected_depth, s.u)));
     if (job.gauge) {
       out += wrap(correction_rule(plan, c), "  ", "  ");
       const std::string taper = detail::taper_words(c, job.dovetail.length, s);

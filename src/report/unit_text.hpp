@@ -10,15 +10,13 @@
 
 #include <fmt/format.h>
 
-#include <dovetailor/base/length_text.hpp>
+#include <dovetailor/base/length.hpp>
 #include <dovetailor/plan/plan.hpp>
 
 namespace dovetailor::detail {
 
 struct UnitText {
   Units u;
-  std::string num(double mm) const { return length_number(mm, u); }
-  std::string len(double mm) const { return length_text(mm, u); }
   // Feeds: 0.1 in/min, or whole mm/min.
   std::string feed(double mm_per_min) const {
     return u == Units::Inch ? fmt::format("{:.1f}", from_mm(mm_per_min, u))
@@ -124,8 +122,8 @@ inline std::string taper_words(const Checkpoint& c, double back_y, const UnitTex
       "Tapered gib: these readings hold at the front end, y = {}. Toward the back the reading "
       "{} {} of y ({} at the back end, y = {}); measured at y, compare it with the expected "
       "reading {} {} x y.",
-      s.len(c.reading_at_y), rate > 0 ? "grows" : "drops", per(rate),
-      s.len(c.expected.value + rate * (back_y - c.reading_at_y)), s.len(back_y),
+      shown(c.reading_at_y, s.u), rate > 0 ? "grows" : "drops", per(rate),
+      shown(c.expected.value + rate * (back_y - c.reading_at_y), s.u), shown(back_y, s.u),
       rate > 0 ? "plus" : "less", fmt::format("{:.6f}", std::abs(rate)));
   if (c.reference_reading)
     text += c.reference_per_length == 0
