@@ -8,6 +8,7 @@
 #include <fmt/format.h>
 #include <nlohmann/json.hpp>
 
+#include <dovetailor/base/length.hpp>
 #include <dovetailor/base/text_wrap.hpp>
 #include <dovetailor/geometry/fit.hpp>
 #include <dovetailor/input/job_reader.hpp>
@@ -15,7 +16,6 @@
 #include "commands.hpp"
 #include "file_io.hpp"
 #include "flags.hpp"
-#include "show.hpp"
 
 namespace dovetailor::cli {
 namespace {
@@ -80,7 +80,7 @@ FitResult fit_from_jobs(const FitOptions& o) {
   Job b = read_job(read_text_file(o.job_files[1]), o.job_files[1]);
   if (a.dovetail.type == b.dovetail.type)
     throw InputError(fmt::format("both jobs are {}; a fit needs one male and one female",
-                                 type_name(a.dovetail.type)),
+                                 key_of(a.dovetail.type)),
                      {b.source}, "dovetail.type");
   const Job& female = a.dovetail.type == DovetailType::Female ? a : b;
   const Job& male = a.dovetail.type == DovetailType::Male ? a : b;
@@ -115,9 +115,9 @@ FitResult fit_from_jobs(const FitOptions& o) {
 
 FitResult fit_from_flags(const FitOptions& o) {
   FitResult r;
-  r.units = parse_units(o.units);
+  r.units = parse_word<Units>(o.units, "--units");
   r.angle = require_flag(o.angle, "--angle", 0, 90);
-  r.angled_flanks = parse_sides(o.sides) == AngledSides::Both ? 2 : 1;
+  r.angled_flanks = parse_word<AngledSides>(o.sides, "--sides") == AngledSides::Both ? 2 : 1;
   const auto len = [&](double v, const char* flag) {
     return to_mm(require_flag(v, flag, 0, 1e4), r.units);
   };
@@ -301,10 +301,10 @@ void setup_fit(CLI::App& app) {
       "fit", "Clearance of a male/female pair, from two job files or from pin readings.");
   cmd->add_option("jobs", o->job_files, "Two job files, one male and one female (either order)");
   cmd->add_option("--units", o->units, "inch or mm (flags mode)")
-      ->check(CLI::IsMember({"inch", "mm"}));
+      ->check(CLI::IsMember(keys_of<Units>()));
   cmd->add_option("--angle", o->angle, "Flank angle, degrees");
   cmd->add_option("--sides", o->sides, "Angled flanks: both, left or right")
-      ->check(CLI::IsMember({"both", "left", "right"}));
+      ->check(CLI::IsMember(keys_of<AngledSides>()));
   cmd->add_option("--female-reading", o->female_reading, "Female reading between pins");
   cmd->add_option("--female-pin", o->female_pin, "Pin diameter used on the female");
   cmd->add_option("--female-depth", o->female_depth, "Female depth, floor to mouth");

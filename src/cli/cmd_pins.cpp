@@ -7,6 +7,7 @@
 #include <fmt/format.h>
 #include <nlohmann/json.hpp>
 
+#include <dovetailor/base/length.hpp>
 #include <dovetailor/geometry/dovetail_section.hpp>
 #include <dovetailor/geometry/pin_gauge.hpp>
 #include <dovetailor/input/job_reader.hpp>
@@ -14,7 +15,6 @@
 #include "commands.hpp"
 #include "file_io.hpp"
 #include "flags.hpp"
-#include "show.hpp"
 
 namespace dovetailor::cli {
 namespace {
@@ -53,28 +53,12 @@ struct PinsCase {
 };
 
 std::string method_text(const PinReading& r) {
-  switch (r.method) {
-    case ReadingMethod::OverPins:
-      return "Reading over 2 pins";
-    case ReadingMethod::BetweenPins:
-      return "Reading between 2 pins";
-    case ReadingMethod::SquareSideToPin:
-      return "Square side to 1 pin";
-  }
-  return "Reading";
+  const std::string_view words = text_of(r.method);
+  return r.method == ReadingMethod::SquareSideToPin ? "Square side to 1 pin"
+                                                    : fmt::format("Reading {}", words);
 }
 
-std::string method_key(const PinReading& r) {
-  switch (r.method) {
-    case ReadingMethod::OverPins:
-      return "over-pins";
-    case ReadingMethod::BetweenPins:
-      return "between-pins";
-    case ReadingMethod::SquareSideToPin:
-      return "square-side-to-pin";
-  }
-  return "";
-}
+std::string method_key(const PinReading& r) { return std::string(key_of(r.method)); }
 
 PinsCase case_from_job(const PinsOptions& o) {
   PinsCase c;
@@ -104,12 +88,12 @@ PinsCase case_from_job(const PinsOptions& o) {
 
 PinsCase case_from_flags(const PinsOptions& o) {
   PinsCase c;
-  c.units = parse_units(o.units);
+  c.units = parse_word<Units>(o.units, "--units");
   DovetailSpec spec;
-  spec.type = parse_type(o.type, "--type");
+  spec.type = parse_word<DovetailType>(o.type, "--type");
   spec.angle = require_flag(o.angle, "--angle", 30, 75);
   spec.depth = to_mm(require_flag(o.depth, "--depth", 0, 1e4), c.units);
-  spec.sides = parse_sides(o.sides);
+  spec.sides = parse_word<AngledSides>(o.sides, "--sides");
   spec.chamfer = to_mm(o.chamfer, c.units);
   c.pin = to_mm(require_flag(o.pin, "--pin", 0, 1e4), c.units);
   c.source = "flags";
@@ -121,7 +105,7 @@ PinsCase case_from_flags(const PinsOptions& o) {
                      "--width/--reading");
   if (!std::isnan(o.width)) {
     spec.width = to_mm(require_flag(o.width, "--width", 0, 1e4), c.units);
-    spec.width_at = o.width_at == "top" ? WidthAt::Top : WidthAt::Bottom;
+    spec.width_at = parse_word<WidthAt>(o.width_at, "--width-at");
   } else {
     spec.width = width_for_reading(spec.type, angled, to_mm(o.reading, c.units), c.pin, spec.angle);
     spec.width_at = WidthAt::Bottom;
@@ -145,7 +129,7 @@ void print_text(const PinsCase& c) {
   const Units u = c.units;
   const PinReading r = reading_of(s, c.pin);
   const bool female = s.type == DovetailType::Female;
-  fmt::print("{} ({} dovetail, {:g} deg, {} angled)\n", c.title, type_name(s.type), s.angle,
+  fmt::print("{} ({} dovetail, {:g} deg, {} angled)\n", c.title, key_of(s.type), s.angle,
              s.angled_flanks() == 2 ? "both flanks" : "one flank");
   fmt::print("All lengths in {}.\n\n", unit_name(u));
   const auto row = [](std::string_view label, const std::string& value) {
@@ -194,7 +178,7 @@ void print_json(const PinsCase& c) {
   const PinReading r = reading_of(s, c.pin);
   nlohmann::json j;
   j["units"] = unit_name(u);
-  j["type"] = type_name(s.type);
+  j["type"] = key_of(s.type);
   j["angle"] = s.angle;
   j["method"] = method_key(r);
   j["pins"] = r.pins;
@@ -244,18 +228,19 @@ void setup_pins(CLI::App& app) {
   auto* cmd = app.add_subcommand(
       "pins", "Widths and the pin reading of a dovetail, from a job file or from flags.");
   cmd->add_option("job", o->job_file, "Job file (TOML); omit to describe the dovetail by flags");
-  cmd->add_option("--type", o->type, "male or female")->check(CLI::IsMember({"male", "female"}));
+  cmd->add_option("--type", o->type, "male or female")
+      ->check(CLI::IsMember(keys_of<DovetailType>()));
   cmd->add_option("--units", o->units, "inch or mm (flags mode)")
-      ->check(CLI::IsMember({"inch", "mm"}));
+      ->check(CLI::IsMember(keys_of<Units>()));
   cmd->add_option("--angle", o->angle, "Flank angle, degrees (30 to 75)");
   cmd->add_option("--depth", o->depth, "Depth, base plane to top plane");
   cmd->add_option("--width", o->width, "Width at --width-at");
   cmd->add_option("--width-at", o->width_at, "bottom (base plane) or top")
-      ->check(CLI::IsMember({"bottom", "top"}));
+      ->check(CLI::IsMember(keys_of<WidthAt>()));
   cmd->add_option("--reading", o->reading, "A pin reading, instead of --width");
   cmd->add_option("--pin", o->pin, "Pin diameter (overrides the job's gauge)");
   cmd->add_option("--sides", o->sides, "Angled flanks: both, left or right")
-      ->check(CLI::IsMember({"both", "left", "right"}));
+      ->check(CLI::IsMember(keys_of<AngledSides>()));
   cmd->add_option("--chamfer", o->chamfer, "Top edge break (flags mode)");
   cmd->add_option("--corner-radius", o->corner_radius, "Cutter corner radius (flags mode)");
   cmd->add_flag("--json", o->json, "Print JSON instead of text");

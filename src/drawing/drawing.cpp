@@ -20,17 +20,7 @@ double floor_direction(const DovetailSection& s, Side side) {
 
 }  // namespace
 
-std::string_view reading_words(ReadingMethod method) {
-  switch (method) {
-    case ReadingMethod::OverPins:
-      return "over the pins";
-    case ReadingMethod::BetweenPins:
-      return "between the pins";
-    case ReadingMethod::SquareSideToPin:
-      return "square side to pin";
-  }
-  return "";
-}
+std::string_view reading_words(ReadingMethod method) { return text_of(method); }
 
 double ring_area(const std::vector<Point2>& ring) {
   double twice = 0;

@@ -7,6 +7,7 @@
 #include <dovetailor/base/caution.hpp>
 #include <dovetailor/base/length.hpp>
 #include <dovetailor/base/text_wrap.hpp>
+#include <dovetailor/job/job_words.hpp>
 #include <dovetailor/report/plan_report.hpp>
 
 #include "gcode_writer_detail.hpp"
@@ -22,7 +23,7 @@ std::string file_name(const std::string& path) {
 
 // The tool with the speeds and feeds its passes run at (the F and S words).
 std::string tool_words(const Tool& t, const Plan& plan, Units u) {
-  const std::string material = t.material == ToolMaterial::Hss ? "HSS" : "carbide";
+  const std::string_view material = text_of(t.material);
   const PassFeeds f = pass_feeds(passes_of_tool(plan, t.number));
   const std::string cutting =
       fmt::format("{}, {}", rpm_words(f, "rpm"),
@@ -106,13 +107,11 @@ std::vector<std::string> header_lines(const Plan& plan, const Post& post,
                             shown(job.stock.height, u)));
   out.push_back(fmt::format(
       "target: {} dovetail {:g} deg, {}, depth {}, width {} at the base plane, {} at the top",
-      female ? "female" : "male", t.angle,
-      t.angled_flanks() == 2 ? "both flanks angled" : "one flank angled", shown(t.depth, u),
-      shown(t.width_bottom(), u), shown(t.width_top(), u)));
+      key_of(t.type), t.angle, t.angled_flanks() == 2 ? "both flanks angled" : "one flank angled",
+      shown(t.depth, u), shown(t.width_bottom(), u), shown(t.width_top(), u)));
   if (t.gib_side)
     out.push_back(fmt::format("gib on the {} flank: that flank is cut {} for it",
-                              *t.gib_side == Side::Left ? "left" : "right",
-                              shown(t.gib_allowance, u)));
+                              text_of(*t.gib_side), shown(t.gib_allowance, u)));
   if (job.gauge) {
     const ReadingBand band = final_reading_band(plan);
     out.push_back(fmt::format("final reading {} of {}: {}, good from {:n} to {}",

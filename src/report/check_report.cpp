@@ -84,17 +84,7 @@ std::string_view end_words(EndKind end) {
   return "?";
 }
 
-std::string_view method_words(ReadingMethod m) {
-  switch (m) {
-    case ReadingMethod::OverPins:
-      return "over 2 pins";
-    case ReadingMethod::BetweenPins:
-      return "between 2 pins";
-    case ReadingMethod::SquareSideToPin:
-      return "square side to 1 pin";
-  }
-  return "?";
-}
+std::string_view method_words(ReadingMethod m) { return text_of(m); }
 
 }  // namespace
 

@@ -3,6 +3,7 @@
 #include <nlohmann/json.hpp>
 
 #include <dovetailor/base/length.hpp>
+#include <dovetailor/job/job_words.hpp>
 #include <dovetailor/report/plan_report.hpp>
 
 #include "unit_text.hpp"
@@ -12,18 +13,6 @@ namespace {
 
 double len(double mm, Units u) { return length_value(mm, u); }
 
-const char* mode_key(MillingMode m) {
-  switch (m) {
-    case MillingMode::Conventional:
-      return "conventional";
-    case MillingMode::Climb:
-      return "climb";
-    case MillingMode::Both:
-      return "both";
-  }
-  return "";
-}
-
 }  // namespace
 
 std::string plan_json(const Plan& plan) {
@@ -31,7 +20,7 @@ std::string plan_json(const Plan& plan) {
   nlohmann::json j;
   j["units"] = unit_name(u);
   j["part"] = plan.job.part.name;
-  j["type"] = plan.target.type == DovetailType::Female ? "female" : "male";
+  j["type"] = key_of(plan.target.type);
   j["angle"] = plan.target.angle;
   j["depth"] = len(plan.target.depth, u);
   j["width_bottom"] = len(plan.target.width_bottom(), u);
@@ -69,7 +58,7 @@ std::string plan_json(const Plan& plan) {
       q["feed"] = len(p.feed, u);
       q["rpm"] = std::round(p.rpm);
       q["deflection"] = len(p.deflection, u);
-      q["mode"] = mode_key(p.mode);
+      q["mode"] = key_of(p.mode);
       passes.push_back(q);
     }
     ops.push_back(o);

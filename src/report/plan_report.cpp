@@ -5,6 +5,7 @@
 #include <dovetailor/base/caution.hpp>
 #include <dovetailor/base/length.hpp>
 #include <dovetailor/base/text_wrap.hpp>
+#include <dovetailor/job/job_words.hpp>
 #include <dovetailor/report/plan_report.hpp>
 
 #include "unit_text.hpp"
@@ -17,26 +18,19 @@ using detail::method_words;
 using detail::role_name;
 using detail::side_name;
 
+// A pass's milling mode for the table column: "conv", "climb", "both".
 std::string mode_name(MillingMode m) {
-  switch (m) {
-    case MillingMode::Conventional:
-      return "conv";
-    case MillingMode::Climb:
-      return "climb";
-    case MillingMode::Both:
-      return "both";
-  }
-  return "";
+  return m == MillingMode::Conventional ? "conv" : std::string(key_of(m));
 }
 
 std::string tool_line(const Tool& t, const std::vector<const Pass*>& passes, const Show& s) {
   std::string what =
       t.kind == ToolKind::EndMill
           ? fmt::format("end mill {} dia, {} flutes, {}", shown(t.diameter, s.u), t.flutes,
-                        t.material == ToolMaterial::Hss ? "HSS" : "carbide")
+                        text_of(t.material))
           : fmt::format("dovetail cutter {} dia x {:g} deg, {} flutes, neck {:n}, {}",
                         shown(t.diameter, s.u), t.angle, t.flutes, shown(t.neck_diameter, s.u),
-                        t.material == ToolMaterial::Hss ? "HSS" : "carbide");
+                        text_of(t.material));
   std::string line = fmt::format("  T{:<3} {}", t.number, what);
   const detail::PassFeeds f = detail::pass_feeds(passes);
   const std::string cutting =

@@ -5,6 +5,7 @@
 
 #include <dovetailor/base/caution.hpp>
 #include <dovetailor/base/length.hpp>
+#include <dovetailor/job/job_words.hpp>
 #include <dovetailor/report/sheet.hpp>
 
 #include "unit_text.hpp"
@@ -22,7 +23,7 @@ std::string direction_word(AxisDirection d, char axis) {
 }
 
 std::string tool_words(const Tool& t, const Show& s) {
-  const std::string material = t.material == ToolMaterial::Hss ? "HSS" : "carbide";
+  const std::string_view material = text_of(t.material);
   if (t.kind == ToolKind::EndMill)
     return fmt::format("T{} end mill {} dia, {} flutes, {}", t.number, shown(t.diameter, s.u),
                        t.flutes, material);
@@ -204,12 +205,11 @@ std::vector<SheetFact> title_facts(const Plan& plan, const SheetOptions& o, cons
   f.push_back({"Date", o.date.empty() ? "-" : o.date});
   f.push_back({"Stock", fmt::format("{:n} x {:n} x {} (X x Y x Z)", shown(job.stock.width, s.u),
                                     shown(job.stock.length, s.u), shown(job.stock.height, s.u))});
-  f.push_back(
-      {"Dovetail", fmt::format("{} {:g} deg, {}, depth {}", female ? "female" : "male", t.angle,
-                               t.angled_flanks() == 2 ? "both flanks angled"
-                               : t.left.angled        ? "left flank angled"
-                                                      : "right flank angled",
-                               shown(t.depth, s.u))});
+  f.push_back({"Dovetail", fmt::format("{} {:g} deg, {}, depth {}", key_of(t.type), t.angle,
+                                       t.angled_flanks() == 2 ? "both flanks angled"
+                                       : t.left.angled        ? "left flank angled"
+                                                              : "right flank angled",
+                                       shown(t.depth, s.u))});
   f.push_back({"Widths", fmt::format("{} at the base plane, {} at the top plane",
                                      shown(t.width_bottom(), s.u), shown(t.width_top(), s.u))});
   if (job.gauge) {

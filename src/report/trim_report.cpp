@@ -7,6 +7,7 @@
 
 #include <dovetailor/base/length.hpp>
 #include <dovetailor/base/text_wrap.hpp>
+#include <dovetailor/job/job_words.hpp>
 #include <dovetailor/report/trim_report.hpp>
 
 #include "unit_text.hpp"
@@ -14,7 +15,7 @@
 namespace dovetailor {
 namespace {
 
-std::string side_words(Side side) { return side == Side::Left ? "left flank" : "right flank"; }
+std::string side_words(Side side) { return fmt::format("{} flank", text_of(side)); }
 
 std::string wrapped(const std::string& text, const std::string& indent = "") {
   std::string out;

@@ -11,6 +11,7 @@
 #include <fmt/format.h>
 
 #include <dovetailor/base/length.hpp>
+#include <dovetailor/job/job_words.hpp>
 #include <dovetailor/plan/plan.hpp>
 
 namespace dovetailor::detail {
@@ -92,22 +93,11 @@ inline std::string role_name(PassRole r) {
 
 // The flank a pass works toward: "left", "right", or "centre".
 inline std::string side_name(std::optional<Side> s) {
-  if (!s) return "centre";
-  return *s == Side::Left ? "left" : "right";
+  return s ? std::string(text_of(*s)) : "centre";
 }
 
 // How the reading is taken: "over 2 pins", "between 2 pins", ...
-inline std::string method_words(const PinReading& r) {
-  switch (r.method) {
-    case ReadingMethod::OverPins:
-      return "over 2 pins";
-    case ReadingMethod::BetweenPins:
-      return "between 2 pins";
-    case ReadingMethod::SquareSideToPin:
-      return "from the square side to 1 pin";
-  }
-  return "";
-}
+inline std::string method_words(const PinReading& r) { return std::string(text_of(r.method)); }
 
 // For a checkpoint on a tapered gib, where its readings hold and how they
 // change along the slide (Checkpoint::reading_per_length); empty without a
