@@ -66,7 +66,7 @@ TEST(section_measure, virtual_pin_reading_matches_handbook_formula) {
     const DovetailSection target = section_of(spec_for(c));
     const double pin = pin_for(c.units);
     const auto m = measure_section(part_region(target), target, {.pin_diameter = pin});
-    ASSERT_TRUE(m.reading) << (m.problems.empty() ? "" : m.problems.front());
+    ASSERT_TRUE(m.reading) << m.problems.size() << " problem(s)";
     const PinReading expected = reading_of(target, pin);
     EXPECT_EQ(m.reading->method, expected.method);
     EXPECT_EQ(m.reading->pins, expected.pins);
@@ -177,11 +177,12 @@ TEST(section_measure, uncut_stock_reports_no_flanks) {
   const auto m =
       measure_section(SectionRegion::rectangle(-60, -30, 60, 0), target, {.pin_diameter = 6});
   EXPECT_FALSE(m.reading);
-  EXPECT_EQ(m.problems.size(), 2u);
+  EXPECT_EQ(m.problems, (std::vector<MeasureProblem>{{MeasureProblemKind::NoFlank, Side::Left},
+                                                     {MeasureProblemKind::NoFlank, Side::Right}}));
   EXPECT_NEAR(m.depth, 0, 1e-9);
   const auto nothing = measure_section(SectionRegion(), target, {.pin_diameter = 6});
   EXPECT_FALSE(nothing.reading);
-  EXPECT_EQ(nothing.problems.size(), 1u);
+  EXPECT_EQ(nothing.problems, std::vector<MeasureProblem>{{MeasureProblemKind::NoMaterial}});
 }
 
 }  // namespace

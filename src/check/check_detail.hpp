@@ -5,7 +5,6 @@
 #include <cstdint>
 #include <memory>
 #include <optional>
-#include <string>
 #include <vector>
 
 #include <dovetailor/check/check_result.hpp>
@@ -19,24 +18,19 @@ namespace dovetailor::detail {
 // Areas below this (mm^2) are rounding, not material: 1 um x 10 um.
 inline constexpr double least_area = 1e-5;
 
-// A length in the job's units with its symbol, for finding texts.
-std::string show_length(double mm, Units units);
-
 // Collects findings: the first `per_kind` of each kind are kept, all are
 // counted. A move seen at several stations gives one finding (same kind and
 // line); findings about the result are kept per station.
 class FindingSink {
  public:
-  FindingSink(Units units, int per_kind) : units_(units), per_kind_(per_kind) {}
+  explicit FindingSink(int per_kind) : per_kind_(per_kind) {}
 
   void add(Finding finding, bool per_station = false);
-  Units units() const { return units_; }
   std::vector<Finding> take_findings() { return std::move(findings_); }
   std::vector<FindingCount> counts() const;
   bool seen(FindingKind kind, int line) const;
 
  private:
-  Units units_;
   int per_kind_;
   std::vector<Finding> findings_;
   std::vector<long> count_ = std::vector<long>(16, 0);
@@ -135,8 +129,7 @@ struct Outcome {
 };
 
 Outcome evaluate_move(const Material& material, const StationTarget& target,
-                      const StationSweep& sweep, const MoveFacts& facts, const SimTool& tool,
-                      Units units);
+                      const StationSweep& sweep, const MoveFacts& facts, const SimTool& tool);
 
 // Thickness of a thin region, 2 * area / perimeter (exact for a long strip).
 double thickness_of(const SectionRegion& region);

@@ -40,6 +40,26 @@ std::string_view finding_kind_name(FindingKind kind) {
   return "?";
 }
 
+std::string_view tool_word_name(ToolWord word) {
+  switch (word) {
+    case ToolWord::None:
+      return "none";
+    case ToolWord::T:
+      return "t";
+    case ToolWord::M6:
+      return "m6";
+    case ToolWord::D:
+      return "d";
+    case ToolWord::H:
+      return "h";
+  }
+  return "?";
+}
+
+std::string_view overload_name(Overload overload) {
+  return overload == Overload::Slot ? "slot" : "radial_cut";
+}
+
 std::string_view severity_name(Severity severity) {
   return severity == Severity::Error ? "error" : "warning";
 }

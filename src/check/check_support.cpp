@@ -1,15 +1,9 @@
 #include <algorithm>
 #include <cmath>
 
-#include <fmt/format.h>
-
 #include "check_detail.hpp"
 
 namespace dovetailor::detail {
-
-std::string show_length(double mm, Units units) {
-  return fmt::format("{:.{}f} {}", from_mm(mm, units), length_decimals(units), unit_symbol(units));
-}
 
 void FindingSink::add(Finding finding, bool per_station) {
   const auto k = static_cast<std::size_t>(finding.kind);

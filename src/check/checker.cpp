@@ -110,11 +110,21 @@ ArcMove arc_move(const PathSegment& s) {
 class Checker {
  public:
   Checker(const Job& job, const CheckOptions& options)
-      : job_(job), options_(options), sink_(job.units, options.findings_per_kind) {}
+      : job_(job), options_(options), sink_(options.findings_per_kind) {}
 
   CheckReport run(ProgramSource& program);
 
  private:
+  void prepare_tools();
+  StationSimulator make_simulator();
+  void read_program(ProgramSource& program, StationSimulator& sim, CheckReport& report);
+  void handle(const Event& event, StationSimulator& sim, CheckReport& report);
+  void home_return(const Event& event, const Motion& m);
+  void missing_tool(const Event& event, const MissingTool& missing);
+  void tool_change(const Event& event, const ToolChange& change);
+  void spindle_change(const Event& event, const SpindleChange& spindle);
+  void program_end(const Event& event, const ProgramEnd& end, CheckReport& report);
+  void unknown_tool(int line, int number, ToolWord named_by);
   void motion(const Event& event, const Motion& m, StationSimulator& sim);
   // The move in the job's frame: from the event's work coordinates through
   // machine coordinates to the program frame (the system the program started
@@ -203,30 +213,32 @@ const SimTool* Checker::tool_for(const Event& event) {
       sink_.add({.kind = FindingKind::UnknownTool,
                  .severity = Severity::Warning,
                  .line = event.line,
-                 .text = "moves below the top face with no tool in the spindle (no T and M6 "
-                         "yet): not simulated"});
+                 .named_by = ToolWord::None});
     }
     return nullptr;
   }
-  if (unknown_reported_.insert(number).second)
-    sink_.add({.kind = FindingKind::UnknownTool,
-               .severity = Severity::Error,
-               .line = event.line,
-               .amount = static_cast<double>(number),
-               .text = fmt::format("the program cuts with T{}, which the job does not list in "
-                                   "[[tool]]: its moves cannot be checked",
-                                   number)});
+  if (unknown_reported_.insert(number).second) unknown_tool(event.line, number, ToolWord::T);
   return nullptr;
 }
 
+void Checker::unknown_tool(int line, int number, ToolWord named_by) {
+  sink_.add({.kind = FindingKind::UnknownTool,
+             .severity = Severity::Error,
+             .line = line,
+             .amount = static_cast<double>(number),
+             .tool = number,
+             .named_by = named_by});
+}
+
 void Checker::fixtures(const SimTool& tool, const Point3& from, const Point3& to, int line) {
-  for (const Fixture& f : job_.fixtures) {
-    if (auto part = detail::body_meets_box(tool.body, from, to, f)) {
+  for (std::size_t i = 0; i < job_.fixtures.size(); ++i) {
+    if (auto part = detail::body_meets_box(tool.body, from, to, job_.fixtures[i])) {
       sink_.add({.kind = FindingKind::FixtureCollision,
                  .severity = Severity::Error,
                  .line = line,
-                 .text = fmt::format("the {} of T{} runs into {}", body_part_name(*part),
-                                     tool.number, f.name)});
+                 .tool = tool.number,
+                 .part = part,
+                 .fixture = static_cast<int>(i)});
       return;
     }
   }
@@ -265,13 +277,11 @@ void Checker::motion(const Event& event, const Motion& m, StationSimulator& sim)
                  .line = event.line,
                  .amount = *below,
                  .limit = rules_.safe_z,
-                 .text = fmt::format("rapid move over the stock {} below the safe height {}",
-                                     detail::show_length(*below, job_.units),
-                                     detail::show_length(rules_.safe_z, job_.units))});
+                 .tool = tool->number});
   }
 }
 
-CheckReport Checker::run(ProgramSource& program) {
+void Checker::prepare_tools() {
   rules_ = planner_rules(job_);
   for (const Tool& t : job_.tools) {
     detail::CutterLimits limits{
@@ -281,6 +291,11 @@ CheckReport Checker::run(ProgramSource& program) {
       if (number == t.number) limits.radial_step = l;
     tools_.push_back(detail::make_sim_tool(t, static_cast<int>(tools_.size()), limits));
   }
+}
+
+// The stations, each with the finished part it must hold (one shared target
+// unless a flank tapers), and the stock rectangle in all of them.
+StationSimulator Checker::make_simulator() {
   const std::vector<double> ys = station_positions(job_, options_.stations);
   const Tolerance& tol = job_.dovetail.tolerance;
   const double allowance = std::max((tol.upper - tol.lower) / 2, 0.001);
@@ -294,13 +309,70 @@ CheckReport Checker::run(ProgramSource& program) {
       targets.push_back(targets.front());
   const SectionRegion stock =
       SectionRegion::rectangle(stock_left_x(job_), -job_.stock.height, stock_right_x(job_), 0);
-  StationSimulator sim(ys, std::move(targets), stock, sink_);
+  return StationSimulator(ys, std::move(targets), stock, sink_);
+}
 
+void Checker::home_return(const Event& event, const Motion& m) {
+  const bool home_given = m.home_return == 28   ? job_.program.g28_home.has_value()
+                          : m.home_return == 30 ? job_.program.g30_home.has_value()
+                                                : true;
+  if (!home_given)
+    sink_.add({.kind = FindingKind::HomeNotGiven,
+               .severity = Severity::Warning,
+               .line = event.line,
+               .home_return = m.home_return});
+}
+
+void Checker::missing_tool(const Event& event, const MissingTool& missing) {
+  if (unknown_reported_.insert(missing.tool).second)
+    unknown_tool(event.line, missing.tool, missing.word == 'D' ? ToolWord::D : ToolWord::H);
+}
+
+void Checker::tool_change(const Event& event, const ToolChange& change) {
+  hand_changed_ = 0;
+  if (change.tool != 0 && !find_tool(job_, change.tool) &&
+      unknown_reported_.insert(change.tool).second)
+    unknown_tool(event.line, change.tool, ToolWord::M6);
+}
+
+void Checker::spindle_change(const Event& event, const SpindleChange& spindle) {
+  const auto& max = job_.machine.max_rpm;
+  if (max && spindle.direction != SpindleDirection::Stopped && spindle.rpm > *max * 1.000001)
+    sink_.add({.kind = FindingKind::SpindleSpeed,
+               .severity = Severity::Warning,
+               .line = event.line,
+               .amount = spindle.rpm,
+               .limit = *max});
+}
+
+void Checker::program_end(const Event& event, const ProgramEnd& end, CheckReport& report) {
+  report.end = end.how;
+  end_line_ = event.line;
+  if (end.how == EndKind::EndOfInput)
+    sink_.add(
+        {.kind = FindingKind::NoProgramEnd, .severity = Severity::Warning, .line = event.line});
+}
+
+void Checker::handle(const Event& event, StationSimulator& sim, CheckReport& report) {
+  if (const auto* m = std::get_if<Motion>(&event.body)) {
+    home_return(event, *m);
+    motion(event, in_job_frame(event, *m), sim);
+  } else if (const auto* missing = std::get_if<MissingTool>(&event.body)) {
+    missing_tool(event, *missing);
+  } else if (std::holds_alternative<Stop>(event.body)) {
+    if (event.state.selected_tool != event.state.tool) hand_changed_ = event.state.selected_tool;
+  } else if (const auto* change = std::get_if<ToolChange>(&event.body)) {
+    tool_change(event, *change);
+  } else if (const auto* spindle = std::get_if<SpindleChange>(&event.body)) {
+    spindle_change(event, *spindle);
+  } else if (const auto* end = std::get_if<ProgramEnd>(&event.body)) {
+    program_end(event, *end, report);
+  }
+}
+
+void Checker::read_program(ProgramSource& program, StationSimulator& sim, CheckReport& report) {
   start_origin_ = job_.program.offsets[0].value_or(Point3{});
   Rs274Interpreter reader(program, interpreter_options());
-  CheckReport report;
-  report.program = program.name();
-  report.setup = job_.program;
   long next_progress = options_.progress_every;
   while (auto event = reader.next()) {
     if (options_.progress && event->line >= next_progress) {
@@ -313,69 +385,23 @@ CheckReport Checker::run(ProgramSource& program) {
                                    "far shorter: is this the right file?",
                                    options_.max_lines),
                        {program.name(), event->line}, "program length");
-    if (const auto* m = std::get_if<Motion>(&event->body)) {
-      const bool home_given = m->home_return == 28   ? job_.program.g28_home.has_value()
-                              : m->home_return == 30 ? job_.program.g30_home.has_value()
-                                                     : true;
-      if (!home_given)
-        sink_.add({.kind = FindingKind::HomeNotGiven,
-                   .severity = Severity::Warning,
-                   .line = event->line,
-                   .text = fmt::format("G{} return with no home position given ([program] g{} "
-                                       "or --home G{}=X..,Y..,Z..): taken as straight up from "
-                                       "its intermediate point",
-                                       m->home_return, m->home_return, m->home_return)});
-      motion(*event, in_job_frame(*event, *m), sim);
-    } else if (const auto* missing = std::get_if<MissingTool>(&event->body)) {
-      if (unknown_reported_.insert(missing->tool).second)
-        sink_.add({.kind = FindingKind::UnknownTool,
-                   .severity = Severity::Error,
-                   .line = event->line,
-                   .amount = static_cast<double>(missing->tool),
-                   .text = fmt::format("{}{} names T{}, which the job does not list in [[tool]]: "
-                                       "taken as zero {}; moves with T{} cannot be checked",
-                                       missing->word, missing->tool, missing->tool,
-                                       missing->word == 'D' ? "radius" : "length", missing->tool)});
-    } else if (std::holds_alternative<Stop>(event->body)) {
-      if (event->state.selected_tool != event->state.tool)
-        hand_changed_ = event->state.selected_tool;
-    } else if (const auto* change = std::get_if<ToolChange>(&event->body)) {
-      hand_changed_ = 0;
-      if (change->tool != 0 && !find_tool(job_, change->tool) &&
-          unknown_reported_.insert(change->tool).second)
-        sink_.add({.kind = FindingKind::UnknownTool,
-                   .severity = Severity::Error,
-                   .line = event->line,
-                   .amount = static_cast<double>(change->tool),
-                   .text = fmt::format("M6 loads T{}, which the job does not list in "
-                                       "[[tool]]: its moves cannot be checked",
-                                       change->tool)});
-    } else if (const auto* spindle = std::get_if<SpindleChange>(&event->body)) {
-      const auto& max = job_.machine.max_rpm;
-      if (max && spindle->direction != SpindleDirection::Stopped && spindle->rpm > *max * 1.000001)
-        sink_.add({.kind = FindingKind::SpindleSpeed,
-                   .severity = Severity::Warning,
-                   .line = event->line,
-                   .amount = spindle->rpm,
-                   .limit = *max,
-                   .text = fmt::format("spindle speed {:.0f} rev/min is above the machine's "
-                                       "maximum {:.0f} rev/min (machine.max_rpm)",
-                                       spindle->rpm, *max)});
-    } else if (const auto* end = std::get_if<ProgramEnd>(&event->body)) {
-      report.end = end->how;
-      end_line_ = event->line;
-      if (end->how == EndKind::EndOfInput)
-        sink_.add({.kind = FindingKind::NoProgramEnd,
-                   .severity = Severity::Warning,
-                   .line = event->line,
-                   .text = "the program ends without M2, M30 or '%'"});
-    }
+    handle(*event, sim, report);
   }
   sim.flush();
   if (options_.progress) options_.progress(report.lines);
+}
+
+CheckReport Checker::run(ProgramSource& program) {
+  prepare_tools();
+  StationSimulator sim = make_simulator();
+  CheckReport report;
+  report.program = program.name();
+  report.setup = job_.program;
+  for (const Fixture& f : job_.fixtures) report.fixtures.push_back(f.name);
+  read_program(program, sim, report);
   report.units = job_.units;
   report.type = job_.dovetail.type;
-  report.tolerance = tol;
+  report.tolerance = job_.dovetail.tolerance;
   report.moves = moves_;
   detail::measure_stations(job_, sim, sink_, end_line_, report);
   report.findings = sink_.take_findings();

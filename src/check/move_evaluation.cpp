@@ -1,21 +1,21 @@
 #include <algorithm>
 #include <cmath>
 
-#include <fmt/format.h>
-
 #include "check_detail.hpp"
 
 namespace dovetailor::detail {
 namespace {
 
-Finding finding(FindingKind kind, Severity severity, double amount, double limit,
-                std::string text) {
+// A finding about a move by `tool` (line and station are the caller's).
+Finding finding(FindingKind kind, double amount, double limit, const SimTool& tool) {
   return {.kind = kind,
-          .severity = severity,
+          .severity = Severity::Error,
           .amount = amount,
           .limit = limit,
-          .text = std::move(text)};
+          .tool = tool.number};
 }
+
+Point2 middle(const Bounds2& b) { return {(b.x_min + b.x_max) / 2, (b.z_min + b.z_max) / 2}; }
 
 // Engagement of a dovetail cutter: a thin margin over the planner's own
 // figures. 5 um covers the rounding of positions in a program (a step
@@ -118,14 +118,60 @@ double cut_at_flute_top(const SectionRegion& removed, double flute_top, const Si
   return tool.dovetail ? width * std::sin(radians(tool.tool.angle)) : width;
 }
 
+// A dovetail cutter's engagement against its limits (checker.hpp): a slot,
+// or a radial cut wider than the planner's step; none for other tools,
+// rapids and moves not along Y.
+std::optional<Finding> cutter_overload(const SectionRegion& removed, const Bounds2& rb,
+                                       const MoveFacts& facts, const SimTool& tool) {
+  const CutterLimits& limits = tool.limits;
+  if (limits.radial_step <= 0 || !facts.along_y || facts.kind == MotionKind::Rapid) return {};
+  // Read across the move: a slanted pass's section is sqrt(1 + s^2)
+  // wider than the cut square to its path.
+  const double across_path = 1 / std::hypot(1.0, facts.axis_slope);
+  const double tip = facts.axis_z;
+  const Engagement e = engagement(removed, rb, facts.axis_x, tip + beyond(limits.floor_skin),
+                                  tip + beyond(limits.skin_across), tip + tool.tool.flute_length);
+  const double ae = e.widest * across_path;
+  if (e.across > 1e-4) {
+    Finding f =
+        finding(FindingKind::CutterOverload, e.width * across_path, limits.radial_step, tool);
+    f.overload = Overload::Slot;
+    f.on_axis = e.across;
+    return f;
+  }
+  if (ae > beyond(limits.radial_step)) {
+    Finding f = finding(FindingKind::CutterOverload, ae, limits.radial_step, tool);
+    f.overload = Overload::RadialCut;
+    return f;
+  }
+  return {};
+}
+
+// Engaged at their top: a cut there thicker than the tolerance's
+// allowance, with material left above the flutes. A thinner layer is the
+// finished surface as the checker judges it everywhere (neither gouge nor
+// stock left): flutes meeting a surface the level above has finished, by
+// the rounding of the program's positions at the joint of two levels, rub
+// it; they do not cut a chip at their top.
+std::optional<Finding> depth_of_cut(const SectionRegion& removed, const Bounds2& rb,
+                                    const SectionRegion& after, const StationSweep& sweep,
+                                    const MoveFacts& facts, const SimTool& tool, double allowance) {
+  const double flute_top = facts.tip_z + tool.tool.flute_length;
+  if (rb.z_max < flute_top - 1e-3 || sweep.column.empty() ||
+      cut_at_flute_top(removed, flute_top, tool) <= allowance)
+    return {};
+  const SectionRegion buried = intersect(after, sweep.column);
+  if (buried.area() <= least_area) return {};
+  const double above = buried.bounds()->z_max - flute_top;
+  return finding(FindingKind::DepthOfCut, above, tool.tool.flute_length, tool);
+}
+
 }  // namespace
 
 Outcome evaluate_move(const Material& material, const StationTarget& target,
-                      const StationSweep& sweep, const MoveFacts& facts, const SimTool& tool,
-                      Units units) {
+                      const StationSweep& sweep, const MoveFacts& facts, const SimTool& tool) {
   Outcome out;
   if (!sweep.bounds || !material.bounds || !overlaps(*sweep.bounds, *material.bounds)) return out;
-  const auto show = [units](double mm) { return show_length(mm, units); };
   const SectionRegion* now = &material.region;
 
   if (!sweep.flutes.empty()) {
@@ -139,79 +185,24 @@ Outcome evaluate_move(const Material& material, const StationTarget& target,
       const auto rb = *removed.bounds();
       const double deep = rb.z_max - rb.z_min;
       if (facts.kind == MotionKind::Rapid) {
-        out.findings.push_back(finding(
-            FindingKind::RapidThroughMaterial, Severity::Error, deep, 0,
-            fmt::format(
-                "rapid move meets material: {} of it in the tool's path, {} high",
-                fmt::format("{:.4g} {}^2", area / std::pow(to_mm(1, units), 2), unit_symbol(units)),
-                show(deep))));
+        Finding f = finding(FindingKind::RapidThroughMaterial, deep, 0, tool);
+        f.area = area;
+        out.findings.push_back(f);
       } else if (!facts.spindle_on) {
-        out.findings.push_back(finding(
-            FindingKind::SpindleStopped, Severity::Error, deep, 0,
-            fmt::format("feed move into material with the spindle stopped ({} high)", show(deep))));
+        out.findings.push_back(finding(FindingKind::SpindleStopped, deep, 0, tool));
       }
       if (tool.dovetail && facts.plunging) {
-        out.findings.push_back(
-            finding(FindingKind::Plunge, Severity::Error, deep, 0,
-                    fmt::format("dovetail cutter T{} moves down into material ({} of material); it "
-                                "has no end-cutting centre and breaks",
-                                tool.number, show(deep))));
+        out.findings.push_back(finding(FindingKind::Plunge, deep, 0, tool));
       }
-      const CutterLimits& limits = tool.limits;
-      if (limits.radial_step > 0 && facts.along_y && facts.kind != MotionKind::Rapid) {
-        // Read across the move: a slanted pass's section is sqrt(1 + s^2)
-        // wider than the cut square to its path.
-        const double across_path = 1 / std::hypot(1.0, facts.axis_slope);
-        const double tip = facts.axis_z;
-        const Engagement e =
-            engagement(removed, rb, facts.axis_x, tip + beyond(limits.floor_skin),
-                       tip + beyond(limits.skin_across), tip + tool.tool.flute_length);
-        const double ae = e.widest * across_path;
-        if (e.across > 1e-4) {
-          const double width = e.width * across_path;
-          out.findings.push_back(finding(
-              FindingKind::CutterOverload, Severity::Error, width, limits.radial_step,
-              fmt::format("dovetail cutter T{} slots through material, engaged across its "
-                          "diameter: a cut {} wide with {} of material on its axis, where the "
-                          "planner steps it {} at a time from one side; it breaks",
-                          tool.number, show(width), show(e.across), show(limits.radial_step))));
-        } else if (ae > beyond(limits.radial_step)) {
-          out.findings.push_back(finding(
-              FindingKind::CutterOverload, Severity::Error, ae, limits.radial_step,
-              fmt::format("dovetail cutter T{} takes a radial cut of {}; the largest step the "
-                          "planner takes with it is {}",
-                          tool.number, show(ae), show(limits.radial_step))));
-        }
-      }
-      // Engaged at their top: a cut there thicker than the tolerance's
-      // allowance. A thinner layer is the finished surface as the checker
-      // judges it everywhere (neither gouge nor stock left): flutes meeting
-      // a surface the level above has finished, by the rounding of the
-      // program's positions at the joint of two levels, rub it; they do not
-      // cut a chip at their top.
-      const double flute_top = facts.tip_z + tool.tool.flute_length;
-      if (rb.z_max >= flute_top - 1e-3 && !sweep.column.empty() &&
-          cut_at_flute_top(removed, flute_top, tool) > target.allowance) {
-        const SectionRegion buried = intersect(after->region, sweep.column);
-        if (buried.area() > least_area) {
-          const double above = buried.bounds()->z_max - flute_top;
-          out.findings.push_back(
-              finding(FindingKind::DepthOfCut, Severity::Error, above, tool.tool.flute_length,
-                      fmt::format("T{} cuts deeper than its flutes are long ({}): material runs {} "
-                                  "above the top of the flutes",
-                                  tool.number, show(tool.tool.flute_length), show(above))));
-        }
-      }
+      if (auto f = cutter_overload(removed, rb, facts, tool)) out.findings.push_back(*f);
+      if (auto f = depth_of_cut(removed, rb, after->region, sweep, facts, tool, target.allowance))
+        out.findings.push_back(*f);
       const SectionRegion gouge = intersect(removed, target.forbidden);
       if (gouge.area() > least_area) {
         const GougeDepth g = gouge_depth(gouge, target.part, target.allowance);
-        const auto& gb = g.deepest;
-        out.findings.push_back(
-            finding(FindingKind::Gouge, Severity::Error, g.depth, target.allowance,
-                    fmt::format("gouge {} deep into the finished part, allowed {}; deepest "
-                                "near x = {}, z = {}",
-                                show(g.depth), show(target.allowance),
-                                show((gb.x_min + gb.x_max) / 2), show((gb.z_min + gb.z_max) / 2))));
+        Finding f = finding(FindingKind::Gouge, g.depth, target.allowance, tool);
+        f.at = middle(g.deepest);
+        out.findings.push_back(f);
       }
       out.after = std::move(after);
     }
@@ -222,12 +213,10 @@ Outcome evaluate_move(const Material& material, const StationTarget& target,
     if (!rb || !overlaps(*rb, *material.bounds)) continue;
     const SectionRegion touch = intersect(*now, region);
     if (touch.area() <= least_area) continue;
-    const auto tb = *touch.bounds();
-    out.findings.push_back(
-        finding(FindingKind::BodyCollision, Severity::Error, thickness_of(touch), 0,
-                fmt::format("the {} of T{} runs into material about {} deep near x = {}, z = {}",
-                            body_part_name(part), tool.number, show(thickness_of(touch)),
-                            show((tb.x_min + tb.x_max) / 2), show((tb.z_min + tb.z_max) / 2))));
+    Finding f = finding(FindingKind::BodyCollision, thickness_of(touch), 0, tool);
+    f.part = part;
+    f.at = middle(*touch.bounds());
+    out.findings.push_back(f);
   }
   return out;
 }

@@ -1,8 +1,6 @@
 #include <algorithm>
 #include <cmath>
 
-#include <fmt/format.h>
-
 #include "station_simulator.hpp"
 
 namespace dovetailor::detail {
@@ -46,8 +44,6 @@ SectionRegion allowed_material(const Job& job, const StationTarget& target) {
 
 void measure_stations(const Job& job, const StationSimulator& sim, FindingSink& sink, int end_line,
                       CheckReport& report) {
-  const Units u = job.units;
-  const auto show = [u](double mm) { return show_length(mm, u); };
   const Tolerance& tol = job.dovetail.tolerance;
   for (std::size_t s = 0; s < sim.ys().size(); ++s) {
     const double y = sim.ys()[s];
@@ -58,18 +54,13 @@ void measure_stations(const Job& job, const StationSimulator& sim, FindingSink& 
     const SectionRegion excess = subtract(material, allowed_material(job, target));
     const bool stock_left = excess.area() > least_area;
     if (stock_left) {
-      const auto b = *excess.bounds();
-      const double thick = thickness_of(excess) + target.allowance;
       sink.add({.kind = FindingKind::StockLeft,
                 .severity = Severity::Error,
                 .line = end_line,
                 .station_y = y,
-                .amount = thick,
+                .amount = thickness_of(excess) + target.allowance,
                 .limit = target.allowance,
-                .text = fmt::format("stock left outside the finished part, about {} thick, "
-                                    "from x = {} to {}, z = {} to {}",
-                                    show(thick), show(b.x_min), show(b.x_max), show(b.z_min),
-                                    show(b.z_max))},
+                .extent = excess.bounds()},
                true);
     }
 
@@ -94,21 +85,21 @@ void measure_stations(const Job& job, const StationSimulator& sim, FindingSink& 
           error >= tol.lower - reading_slack && error <= tol.upper + reading_slack;
     }
     if (!r.reading_in_tolerance) {
-      const std::string what =
-          r.measured.reading
-              ? fmt::format("reads {} against {} ({} to {})", show(r.measured.reading->value),
-                            show(want), show(nominal + tol.lower), show(nominal + tol.upper))
-              : fmt::format(
-                    "cannot be read with {} pins: {}", show(pin),
-                    r.measured.problems.empty() ? "no flank found" : r.measured.problems.front());
-      sink.add({.kind = FindingKind::ReadingOutOfTolerance,
+      Finding f{.kind = FindingKind::ReadingOutOfTolerance,
                 .severity = Severity::Error,
                 .line = end_line,
                 .station_y = y,
                 .amount = r.measured.reading ? r.measured.reading->value : 0,
                 .limit = want,
-                .text = "the section " + what},
-               true);
+                .band_low = nominal + tol.lower,
+                .band_high = nominal + tol.upper,
+                .pin_diameter = pin};
+      // measure_section gives a problem whenever it gives no reading.
+      if (!r.measured.reading)
+        f.problem = r.measured.problems.empty()
+                        ? MeasureProblem{.kind = MeasureProblemKind::NoFlank}
+                        : r.measured.problems.front();
+      sink.add(std::move(f), true);
     }
     report.stations.push_back(std::move(r));
   }

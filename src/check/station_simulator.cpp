@@ -102,8 +102,8 @@ void StationSimulator::apply(std::size_t station, const Outcome& outcome, int li
 
 void StationSimulator::apply_general(std::size_t station, const StationSweep& sweep,
                                      const MoveFacts& facts, const SimTool& tool) {
-  Outcome outcome = evaluate_move(*material_[station], targets_[target_of_[station]], sweep, facts,
-                                  tool, sink_.units());
+  Outcome outcome =
+      evaluate_move(*material_[station], targets_[target_of_[station]], sweep, facts, tool);
   if (outcome.after) outcome.after->id = next_id_++;
   apply(station, outcome, facts.line);
 }
@@ -310,8 +310,8 @@ void StationSimulator::flush() {
       auto found = memo_.find(key);
       if (found == memo_.end()) {
         if (!crossing) crossing = sweep_silhouettes(tool, run_.x, run_.z);
-        Outcome outcome = evaluate_move(*material_[s], targets_[target_of_[s]], *crossing,
-                                        run_.facts, tool, sink_.units());
+        Outcome outcome =
+            evaluate_move(*material_[s], targets_[target_of_[s]], *crossing, run_.facts, tool);
         if (outcome.after) outcome.after->id = next_id_++;
         if (memo_.size() >= memo_capacity) memo_.clear();
         found = memo_.emplace(key, std::move(outcome)).first;

@@ -3,8 +3,6 @@
 #include <cmath>
 #include <set>
 
-#include <fmt/format.h>
-
 #include <dovetailor/geometry/section_measure.hpp>
 
 namespace dovetailor {
@@ -19,8 +17,6 @@ double into_void(DovetailType type, Side side) {
   const double toward_middle = side == Side::Left ? 1.0 : -1.0;
   return type == DovetailType::Female ? toward_middle : -toward_middle;
 }
-
-std::string_view side_name(Side side) { return side == Side::Left ? "left" : "right"; }
 
 // The flank's lateral position on the row at height z: the edges of the gap
 // around the centre line (female) or of the tongue over it (male).
@@ -148,13 +144,25 @@ std::optional<Point2> pin_centre(const SectionRegion& shrunk_void, const Bounds2
 
 }  // namespace
 
+std::string_view measure_problem_name(MeasureProblemKind kind) {
+  switch (kind) {
+    case MeasureProblemKind::NoMaterial:
+      return "no_material";
+    case MeasureProblemKind::NoFlank:
+      return "no_flank";
+    case MeasureProblemKind::PinDoesNotFit:
+      return "pin_does_not_fit";
+  }
+  return "?";
+}
+
 SectionMeasurement measure_section(const SectionRegion& part, const DovetailSection& target,
                                    const MeasureOptions& options) {
   assert(options.pin_diameter > 0 && options.flank_samples >= 2);
   SectionMeasurement result;
   const auto bounds = part.bounds();
   if (!bounds) {
-    result.problems.push_back("no material is left in this section");
+    result.problems.push_back({MeasureProblemKind::NoMaterial});
     return result;
   }
   result.top_z = bounds->z_max;
@@ -167,15 +175,13 @@ SectionMeasurement measure_section(const SectionRegion& part, const DovetailSect
   for (Side side : {Side::Left, Side::Right}) {
     FlankMeasurement m = measure_flank(part, target, side, result.top_z, options);
     if (!m.found) {
-      result.problems.push_back(
-          fmt::format("no {} flank was found between the floor and the top face", side_name(side)));
+      result.problems.push_back({MeasureProblemKind::NoFlank, side});
     } else if (m.angled) {
       m.pin_center = pin_centre(shrunk_void, *bounds, result.top_z, target.type, side);
       if (m.pin_center)
         m.measuring_x = m.pin_center->x + into_void(target.type, side) * r;
       else
-        result.problems.push_back(
-            fmt::format("a pin of this size does not fit into the {} corner", side_name(side)));
+        result.problems.push_back({MeasureProblemKind::PinDoesNotFit, side});
     }
     (side == Side::Left ? result.left : result.right) = m;
   }

@@ -1,5 +1,6 @@
 #include <cmath>
 
+#include <fmt/format.h>
 #include <nlohmann/json.hpp>
 
 #include <dovetailor/report/check_report.hpp>
@@ -11,6 +12,47 @@ namespace {
 double len(double mm, Units u) {
   const double scale = std::pow(10.0, length_decimals(u) + 2);
   return std::round(from_mm(mm, u) * scale) / scale;
+}
+
+std::string_view side_word(Side side) { return side == Side::Left ? "left" : "right"; }
+
+// The finding's data besides kind, severity, line and figures: only what its
+// kind uses.
+void add_finding_data(nlohmann::json& o, const Finding& f, const CheckReport& r) {
+  const Units u = r.units;
+  if (f.tool != 0) o["tool"] = f.tool;
+  if (f.kind == FindingKind::UnknownTool) o["named_by"] = tool_word_name(f.named_by);
+  if (f.part) o["part"] = body_part_name(*f.part);
+  if (f.fixture >= 0) {
+    o["fixture_index"] = f.fixture;
+    if (static_cast<std::size_t>(f.fixture) < r.fixtures.size())
+      o["fixture"] = r.fixtures[static_cast<std::size_t>(f.fixture)];
+  }
+  if (f.at) {
+    o["x"] = len(f.at->x, u);
+    o["z"] = len(f.at->z, u);
+  }
+  if (f.extent)
+    o["extent"] = {{"x_min", len(f.extent->x_min, u)},
+                   {"x_max", len(f.extent->x_max, u)},
+                   {"z_min", len(f.extent->z_min, u)},
+                   {"z_max", len(f.extent->z_max, u)}};
+  if (f.kind == FindingKind::RapidThroughMaterial) {
+    const double unit = to_mm(1, u);
+    o["area"] = std::round(f.area / (unit * unit) * 1e6) / 1e6;
+  }
+  if (f.kind == FindingKind::CutterOverload) {
+    o["overload"] = overload_name(f.overload);
+    if (f.overload == Overload::Slot) o["on_axis"] = len(f.on_axis, u);
+  }
+  if (f.kind == FindingKind::HomeNotGiven) o["home_return"] = fmt::format("G{}", f.home_return);
+  if (f.kind == FindingKind::ReadingOutOfTolerance) {
+    o["band"] = {len(f.band_low, u), len(f.band_high, u)};
+    o["pin_diameter"] = len(f.pin_diameter, u);
+    if (f.problem)
+      o["problem"] = {{"kind", measure_problem_name(f.problem->kind)},
+                      {"side", side_word(f.problem->side)}};
+  }
 }
 
 nlohmann::json flank_json(const FlankMeasurement& f, Units u) {
@@ -43,7 +85,8 @@ std::string check_json(const CheckReport& r) {
     const bool speed = f.kind == FindingKind::SpindleSpeed || f.kind == FindingKind::UnknownTool;
     o["amount"] = speed ? f.amount : len(f.amount, u);
     o["limit"] = speed ? f.limit : len(f.limit, u);
-    o["text"] = f.text;
+    o["text"] = finding_text(f, r);
+    add_finding_data(o, f, r);
     findings.push_back(o);
   }
   auto& groups = j["finding_groups"] = nlohmann::json::array();
@@ -53,7 +96,7 @@ std::string check_json(const CheckReport& r) {
     o["severity"] = severity_name(g.severity);
     o["count"] = g.count;
     o["lines"] = g.lines;
-    o["text"] = g.text;
+    o["text"] = finding_text(g.first, r);
     groups.push_back(o);
   }
   auto& counts = j["finding_counts"] = nlohmann::json::object();
@@ -72,7 +115,8 @@ std::string check_json(const CheckReport& r) {
     o["depth"] = len(m.depth, u);
     o["left_flank"] = flank_json(m.left, u);
     o["right_flank"] = flank_json(m.right, u);
-    o["problems"] = m.problems;
+    auto& problems = o["problems"] = nlohmann::json::array();
+    for (const MeasureProblem& p : m.problems) problems.push_back(measure_problem_text(p));
     stations.push_back(o);
   }
   j["reading_taper"] = r.reading_taper;

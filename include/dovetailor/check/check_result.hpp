@@ -7,6 +7,7 @@
 
 #include <dovetailor/geometry/pin_gauge.hpp>
 #include <dovetailor/geometry/section_measure.hpp>
+#include <dovetailor/geometry/tool_body.hpp>
 #include <dovetailor/job/job.hpp>
 #include <dovetailor/rs274/rs274_events.hpp>
 
@@ -41,6 +42,26 @@ std::string_view finding_kind_name(FindingKind kind);
 enum class Severity { Error, Warning };
 std::string_view severity_name(Severity severity);  // "error", "warning"
 
+// What named a tool the job does not list (UnknownTool).
+enum class ToolWord {
+  None,  // no tool at all: moves below the top face before any T and M6
+  T,     // the program cuts with the tool a T word selected (no M6 for it)
+  M6,    // M6 loads it
+  D,     // a D word (cutter radius compensation) names it
+  H,     // an H word (tool length offset) names it
+};
+std::string_view tool_word_name(ToolWord word);  // "none", "t", "m6", "d", "h"
+
+// How a dovetail cutter was overloaded (CutterOverload).
+enum class Overload {
+  Slot,       // engaged across its diameter: material on its axis
+  RadialCut,  // a lateral cut on one side wider than the planner's step
+};
+std::string_view overload_name(Overload overload);  // "slot", "radial_cut"
+
+// A finding is data: the writers (report/check_report.hpp) put it in words
+// and in the job's units. Every length is in mm; every position in the
+// section plane (x across, z up) or in the job's frame.
 struct Finding {
   FindingKind kind = FindingKind::Gouge;
   Severity severity = Severity::Error;
@@ -50,12 +71,49 @@ struct Finding {
   // The station plane (y, mm) where it was seen; none for findings that are
   // not tied to a section (plan-view, spindle speed, fixtures, tools).
   std::optional<double> station_y{};
-  // The main figure: how deep, how thick, how wide, how fast (mm, mm of
-  // radial cut, rev/min), and the limit it was held against.
+  // The main figure and the limit it was held against, by kind:
+  //  Gouge: depth into the finished part / the allowance (half the band).
+  //  StockLeft: thickness / the allowance.
+  //  BodyCollision: how deep the part runs into material / 0.
+  //  RapidThroughMaterial, SpindleStopped, Plunge: height of the material
+  //    met / 0.
+  //  DepthOfCut: how far material runs above the flutes / flute length.
+  //  CutterOverload: the cut's width (Slot) or radial cut (RadialCut) /
+  //    the planner's radial step.
+  //  RapidBelowSafeHeight: how far below / the safe height (z, mm).
+  //  SpindleSpeed: S / machine.max_rpm (rev/min).
+  //  UnknownTool: the tool number (as `tool`) / 0.
+  //  ReadingOutOfTolerance: the reading (0 when none) / the target reading.
   double amount = 0;
   double limit = 0;
-  // What happened, in words a machinist reads, figures in the job's units.
-  std::string text{};
+
+  // What else each kind says; fields a kind does not use keep their
+  // defaults.
+  // The T number: the tool of every finding about a move, the tool not
+  // listed for UnknownTool (0: no tool in the spindle).
+  int tool = 0;
+  ToolWord named_by = ToolWord::None;  // UnknownTool
+  // BodyCollision (neck, shank, holder), FixtureCollision (any part).
+  std::optional<BodyPart> part{};
+  // FixtureCollision: the index of the box in the job's [[fixture]] list
+  // (CheckReport::fixtures has their names).
+  int fixture = -1;
+  // Section coordinates (x, z): Gouge, the middle of its deepest part;
+  // BodyCollision, the middle of the touch.
+  std::optional<Point2> at{};
+  // StockLeft: the bounds of the material left, section coordinates.
+  std::optional<Bounds2> extent{};
+  double area = 0;  // RapidThroughMaterial: material in the tool's path, mm^2
+  // CutterOverload: how; for a Slot, the height of material on the axis.
+  Overload overload = Overload::RadialCut;
+  double on_axis = 0;
+  int home_return = 0;  // HomeNotGiven: 28 or 30 (G28, G30)
+  // ReadingOutOfTolerance: the readings that are good (mm), the pins'
+  // diameter, and why there is no reading (none when there is one).
+  double band_low = 0;
+  double band_high = 0;
+  double pin_diameter = 0;
+  std::optional<MeasureProblem> problem{};
 
   bool operator==(const Finding&) const = default;
 };
@@ -102,7 +160,9 @@ struct StationResult {
 
 struct CheckReport {
   std::string program;  // the program's name, for the report
-  ProgramSetup setup;   // the program's frame, offsets and homes the check used
+  // The job's [[fixture]] names, by index (Finding::fixture).
+  std::vector<std::string> fixtures;
+  ProgramSetup setup;  // the program's frame, offsets and homes the check used
   Units units = Units::Millimetre;
   DovetailType type = DovetailType::Female;
   Tolerance tolerance;               // on the width, and so on the reading

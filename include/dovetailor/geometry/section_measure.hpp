@@ -1,7 +1,7 @@
 #pragma once
 
 #include <optional>
-#include <string>
+#include <string_view>
 #include <vector>
 
 #include <dovetailor/geometry/dovetail_section.hpp>
@@ -57,6 +57,24 @@ struct FlankMeasurement {
   bool operator==(const FlankMeasurement&) const = default;
 };
 
+// Why a section could not be measured (the words are the report's,
+// report/check_report.hpp).
+enum class MeasureProblemKind {
+  NoMaterial,     // nothing is left in the section
+  NoFlank,        // no flank on `side` between the floor and the top face
+  PinDoesNotFit,  // a pin of the given size does not fit into the corner on `side`
+};
+
+struct MeasureProblem {
+  MeasureProblemKind kind = MeasureProblemKind::NoMaterial;
+  Side side = Side::Left;  // NoFlank, PinDoesNotFit
+
+  bool operator==(const MeasureProblem&) const = default;
+};
+
+// "no_material", "no_flank", "pin_does_not_fit" (for JSON).
+std::string_view measure_problem_name(MeasureProblemKind kind);
+
 struct SectionMeasurement {
   double top_z = 0;  // the highest material, the top face
   // Top face to the shallower of the two floors: the depth still to reach.
@@ -69,8 +87,9 @@ struct SectionMeasurement {
   // The reading as a micrometer (or a height gauge from the square side)
   // would give it; none when a flank or a pin position was not found.
   std::optional<PinReading> reading;
-  // Why something could not be measured, in words a machinist reads.
-  std::vector<std::string> problems;
+  // Why something could not be measured; at least one whenever there is no
+  // reading.
+  std::vector<MeasureProblem> problems;
 
   bool operator==(const SectionMeasurement&) const = default;
   const FlankMeasurement& flank(Side side) const { return side == Side::Left ? left : right; }
