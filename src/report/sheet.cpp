@@ -242,6 +242,139 @@ SheetBlock cautions_block(bool manual) {
   return b;
 }
 
+// The manual mill's dials, or none on a CNC job.
+const ManualFeeds* dials_of(const Job& job) {
+  return job.machine.kind == MachineKind::Manual && job.machine.manual ? &*job.machine.manual
+                                                                       : nullptr;
+}
+
+// A tool and the speeds and feeds `passes` run at: "T2 dovetail cutter ...:
+// 306 rev/min, feed ..." (`after_tool` ": ", `after_rpm` ", ") in the set-up.
+std::string cutting_words(const Tool& tool, const std::vector<const Pass*>& passes,
+                          std::string_view after_tool, std::string_view after_rpm, const Show& s) {
+  const detail::PassFeeds f = detail::pass_feeds(passes);
+  return fmt::format("{}{}{}{}{}.", tool_words(tool, s), after_tool,
+                     detail::rpm_words(f, "rev/min"), after_rpm,
+                     detail::feed_words(
+                         f, [&](double v) { return s.feed(v); }, s.feed_unit()));
+}
+
+SheetBlock setup_block(const Plan& plan, const ManualFeeds* dials, const Show& s) {
+  const Job& job = plan.job;
+  SheetBlock setup{"Set-up", {}, true, false};
+  auto& steps = setup.items;
+  steps.push_back(fmt::format(
+      "Square the stock; hold it top face up with the slide running along Y from the front end "
+      "(y = 0) for {}. Work zero: the top face, on the dovetail centre line, at the front end.",
+      shown(job.dovetail.length, s.u)));
+  for (const auto& tool : job.tools) {
+    const auto passes = detail::passes_of_tool(plan, tool.number);
+    if (!passes.empty()) steps.push_back(cutting_words(tool, passes, ": ", ", ", s));
+  }
+  if (dials) {
+    steps.push_back(x_datum_words(plan, *dials, s));
+    steps.push_back(fmt::format(
+        "Z zero, for each tool before its first pass: lower the tip onto a {} feeler on the top "
+        "face moving -Z until the feeler just drags; zero the Z dial there (the tip is then at "
+        "Z = {}). Z dial settings count from this zero.",
+        shown(dials->datum.shim, s.u), shown(dials->datum.shim, s.u)));
+    steps.push_back(dial_words(dials->x, "X", 'X', s));
+    steps.push_back(dial_words(dials->z, "Z", 'Z', s));
+  } else {
+    steps.push_back("Set X zero on the dovetail centre line and Z zero on the top face.");
+  }
+  return setup;
+}
+
+// Where the operator's hands are between operations: the dial positions
+// last set (mm from each dial's zero), the tool in the spindle and the
+// next checkpoint's letter.
+struct SheetWalk {
+  double x_at = 0, z_at = 0;
+  int tool_in_spindle = 0;
+  char letter = 'A';
+};
+
+std::vector<SheetColumn> pass_columns(bool dials) {
+  std::vector<SheetColumn> columns = {
+      {"Pass", CellAlign::Right}, {"Cut"}, {"Side"}, {"X", CellAlign::Right}};
+  if (dials) columns.push_back({"X dial", CellAlign::Right});
+  columns.push_back({"Z", CellAlign::Right});
+  if (dials) columns.push_back({"Z dial", CellAlign::Right});
+  columns.push_back({"Feed", CellAlign::Left});
+  columns.push_back({"Left", CellAlign::Right});
+  columns.push_back({"Done", CellAlign::Left, ColumnKind::Tick});
+  return columns;
+}
+
+OperationRow pass_row(const Plan& plan, const Pass& p, const ManualFeeds* dials, SheetWalk& walk,
+                      const Show& s) {
+  OperationRow row;
+  row.cells = {std::to_string(p.number), role_name(p.role), side_name(p.side),
+               fmt::format("{:n}", shown(p.x, s.u)) + (p.taper_slope != 0 ? "~" : "")};
+  if (dials) {
+    const double x = p.x - x_dial_zero(plan, *dials);
+    row.cells.push_back(dial_step(dials->x, walk.x_at, x).text);
+    walk.x_at = x;
+  }
+  row.cells.push_back(fmt::format("{:n}", shown(p.z, s.u)));
+  if (dials) {
+    const double z = p.z - dials->datum.shim;
+    row.cells.push_back(dial_step(dials->z, walk.z_at, z).text);
+    walk.z_at = z;
+  }
+  row.cells.push_back(feed_direction(p) + " " + s.feed(p.feed));
+  row.cells.push_back(fmt::format("{:n}", shown(p.stock_left, s.u)));
+  row.cells.push_back("[ ]");
+  return row;
+}
+
+OperationTable operation_table(const Plan& plan, const Operation& op, int number,
+                               const ManualFeeds* dials, SheetWalk& walk, const Show& s) {
+  OperationTable table;
+  table.title = fmt::format("Operation {}: {} with T{}", number, op.title, op.tool);
+  if (const Tool* tool = find_tool(plan.job, op.tool))
+    table.intro.push_back(cutting_words(*tool, detail::passes_of(op), "; ", "; ", s));
+  table.intro.push_back(fmt::format("Entry: {}.", op.entry));
+  if (dials && op.tool != walk.tool_in_spindle) {
+    table.intro.push_back(fmt::format(
+        "Change to T{}; touch it off on the top face and zero the Z dial (set-up step).", op.tool));
+    walk.z_at = 0;
+    walk.tool_in_spindle = op.tool;
+  }
+  table.columns = pass_columns(dials != nullptr);
+  for (const auto& p : op.passes) {
+    table.rows.push_back(pass_row(plan, p, dials, walk, s));
+    for (const auto& c : plan.checkpoints)
+      if (c.after_pass == p.number)
+        table.rows.push_back(
+            {{}, checkpoint_box(plan, c, walk.letter++, dials ? &dials->x : nullptr, s)});
+  }
+  return table;
+}
+
+SheetBlock legend_block(const Plan& plan, bool dials, const Show& s) {
+  SheetBlock legend{"Reading the tables", {}, false, false};
+  legend.items.push_back(fmt::format(
+      "X: the tool axis from the dovetail centre line; Z: the tool tip from the top face; "
+      "Feed: the direction along the slide and the rate in {}; Left: stock left on that flank "
+      "or wall after the pass; Done: tick when the pass is cut.",
+      s.feed_unit()));
+  if (dials)
+    legend.items.push_back(
+        "Dial: whole turns from the dial zero + the collar reading (\"5+192\": five turns, "
+        "then 192 on the collar; \"-1+167\": turned back past zero, the collar at 167), "
+        "rounded to the nearest graduation. * : turn back past the setting first (set-up). "
+        "X dial in a checkpoint table: graduations to add to (+) or take off (-) the X dial "
+        "settings of the passes still to come on that flank (L left, R right).");
+  bool taper = false;
+  for (const auto* p : all_passes(plan)) taper = taper || p->taper_slope != 0;
+  if (taper) legend.items.push_back("~ : X at the front end; the pass runs at the gib's taper.");
+  if (!plan.job.gauge)
+    legend.items.push_back("The job gives no gauge pins: measure the widths directly.");
+  return legend;
+}
+
 }  // namespace
 
 std::string dial_text(const DialReading& reading) {
@@ -260,117 +393,18 @@ double x_dial_zero(const Plan& plan, const ManualFeeds& feeds) {
 Sheet build_sheet(const Plan& plan, const SheetOptions& options) {
   const Job& job = plan.job;
   const Show s{job.units};
-  const ManualFeeds* dials = job.machine.kind == MachineKind::Manual && job.machine.manual
-                                 ? &*job.machine.manual
-                                 : nullptr;
+  const ManualFeeds* dials = dials_of(job);
   Sheet sheet;
   sheet.has_dials = dials != nullptr;
   sheet.title = fmt::format("Pass sheet: {}", job.part.name.empty() ? job.source : job.part.name);
   sheet.facts = title_facts(plan, options, s);
   sheet.cautions = cautions_block(job.machine.kind == MachineKind::Manual);
-
-  sheet.setup = {"Set-up", {}, true, false};
-  auto& steps = sheet.setup.items;
-  steps.push_back(fmt::format(
-      "Square the stock; hold it top face up with the slide running along Y from the front end "
-      "(y = 0) for {}. Work zero: the top face, on the dovetail centre line, at the front end.",
-      shown(job.dovetail.length, s.u)));
-  const auto feed_num = [&](double v) { return s.feed(v); };
-  for (const auto& tool : job.tools) {
-    const auto passes = detail::passes_of_tool(plan, tool.number);
-    if (passes.empty()) continue;
-    const detail::PassFeeds f = detail::pass_feeds(passes);
-    steps.push_back(fmt::format("{}: {}, {}.", tool_words(tool, s), detail::rpm_words(f, "rev/min"),
-                                detail::feed_words(f, feed_num, s.feed_unit())));
-  }
-  if (dials) {
-    steps.push_back(x_datum_words(plan, *dials, s));
-    steps.push_back(fmt::format(
-        "Z zero, for each tool before its first pass: lower the tip onto a {} feeler on the top "
-        "face moving -Z until the feeler just drags; zero the Z dial there (the tip is then at "
-        "Z = {}). Z dial settings count from this zero.",
-        shown(dials->datum.shim, s.u), shown(dials->datum.shim, s.u)));
-    steps.push_back(dial_words(dials->x, "X", 'X', s));
-    steps.push_back(dial_words(dials->z, "Z", 'Z', s));
-  } else {
-    steps.push_back("Set X zero on the dovetail centre line and Z zero on the top face.");
-  }
-
-  double x_at = 0, z_at = 0;  // dial positions (mm from each dial's zero) last set
-  int tool_in_spindle = 0;
+  sheet.setup = setup_block(plan, dials, s);
+  SheetWalk walk;
   int op_number = 0;
-  char letter = 'A';
-  const double x_zero = dials ? x_dial_zero(plan, *dials) : 0;
-  const double z_zero = dials ? dials->datum.shim : 0;
-  for (const auto& op : plan.operations) {
-    OperationTable table;
-    table.title = fmt::format("Operation {}: {} with T{}", ++op_number, op.title, op.tool);
-    if (const Tool* tool = find_tool(job, op.tool)) {
-      const detail::PassFeeds f = detail::pass_feeds(detail::passes_of(op));
-      table.intro.push_back(fmt::format("{}; {}; {}.", tool_words(*tool, s),
-                                        detail::rpm_words(f, "rev/min"),
-                                        detail::feed_words(f, feed_num, s.feed_unit())));
-    }
-    table.intro.push_back(fmt::format("Entry: {}.", op.entry));
-    if (dials && op.tool != tool_in_spindle) {
-      table.intro.push_back(fmt::format(
-          "Change to T{}; touch it off on the top face and zero the Z dial (set-up step).",
-          op.tool));
-      z_at = 0;
-      tool_in_spindle = op.tool;
-    }
-    table.columns = {{"Pass", CellAlign::Right}, {"Cut"}, {"Side"}, {"X", CellAlign::Right}};
-    if (dials) table.columns.push_back({"X dial", CellAlign::Right});
-    table.columns.push_back({"Z", CellAlign::Right});
-    if (dials) table.columns.push_back({"Z dial", CellAlign::Right});
-    table.columns.push_back({"Feed", CellAlign::Left});
-    table.columns.push_back({"Left", CellAlign::Right});
-    table.columns.push_back({"Done", CellAlign::Left, ColumnKind::Tick});
-    for (const auto& p : op.passes) {
-      OperationRow row;
-      row.cells = {std::to_string(p.number), role_name(p.role), side_name(p.side),
-                   fmt::format("{:n}", shown(p.x, s.u)) + (p.taper_slope != 0 ? "~" : "")};
-      if (dials) {
-        row.cells.push_back(dial_step(dials->x, x_at, p.x - x_zero).text);
-        x_at = p.x - x_zero;
-      }
-      row.cells.push_back(fmt::format("{:n}", shown(p.z, s.u)));
-      if (dials) {
-        row.cells.push_back(dial_step(dials->z, z_at, p.z - z_zero).text);
-        z_at = p.z - z_zero;
-      }
-      row.cells.push_back(feed_direction(p) + " " + s.feed(p.feed));
-      row.cells.push_back(fmt::format("{:n}", shown(p.stock_left, s.u)));
-      row.cells.push_back("[ ]");
-      table.rows.push_back(row);
-      for (const auto& c : plan.checkpoints)
-        if (c.after_pass == p.number)
-          table.rows.push_back(
-              {{}, checkpoint_box(plan, c, letter++, dials ? &dials->x : nullptr, s)});
-    }
-    sheet.operations.push_back(table);
-  }
-
-  sheet.legend = {"Reading the tables", {}, false, false};
-  sheet.legend.items.push_back(fmt::format(
-      "X: the tool axis from the dovetail centre line; Z: the tool tip from the top face; "
-      "Feed: the direction along the slide and the rate in {}; Left: stock left on that flank "
-      "or wall after the pass; Done: tick when the pass is cut.",
-      s.feed_unit()));
-  if (dials)
-    sheet.legend.items.push_back(
-        "Dial: whole turns from the dial zero + the collar reading (\"5+192\": five turns, "
-        "then 192 on the collar; \"-1+167\": turned back past zero, the collar at 167), "
-        "rounded to the nearest graduation. * : turn back past the setting first (set-up). "
-        "X dial in a checkpoint table: graduations to add to (+) or take off (-) the X dial "
-        "settings of the passes still to come on that flank (L left, R right).");
-  bool taper = false;
-  for (const auto* p : all_passes(plan)) taper = taper || p->taper_slope != 0;
-  if (taper)
-    sheet.legend.items.push_back("~ : X at the front end; the pass runs at the gib's taper.");
-  if (!job.gauge)
-    sheet.legend.items.push_back("The job gives no gauge pins: measure the widths directly.");
-
+  for (const auto& op : plan.operations)
+    sheet.operations.push_back(operation_table(plan, op, ++op_number, dials, walk, s));
+  sheet.legend = legend_block(plan, dials != nullptr, s);
   sheet.notes = {"Notes", plan.notes, false, false};
   for (const auto& w : plan.warnings) sheet.notes.items.push_back("WARNING: " + w);
   return sheet;
