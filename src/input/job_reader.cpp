@@ -190,7 +190,8 @@ class JobReader {
     const int n = d.sides == AngledSides::Both ? 2 : 1;
     const double mate_bottom = width_for_reading(m.type, n, m.reading, m.pin_diameter, d.angle);
     const auto show = [&](double mm) {
-      return fmt::format("{:.{}f} {}", from_mm(mm, job_.units), length_decimals(job_.units) + 1,
+      return fmt::format("{} {}",
+                         fixed_text(from_mm(mm, job_.units), length_decimals(job_.units) + 1),
                          unit_symbol(job_.units));
     };
     // A male deeper than the female lifts it off the shelf and closes the
