@@ -1,13 +1,16 @@
+#include <algorithm>
 #include <cmath>
 #include <cstdio>
 #include <cstdlib>
 #include <fstream>
 #include <sstream>
+#include <utility>
 
 #include <gtest/gtest.h>
 
 #include <dovetailor/drawing/drawing.hpp>
 #include <dovetailor/drawing/drawing_scene.hpp>
+#include <dovetailor/geometry/tool_body.hpp>
 #include <dovetailor/input/job_reader.hpp>
 #include <dovetailor/plan/planner.hpp>
 #include <dovetailor/render/cairo_render.hpp>
@@ -52,6 +55,45 @@ TEST(drawing, removed_regions_and_part_fill_the_stock) {
   }
 }
 
+// Where a ring's edges cross height z: the leftmost and the rightmost x.
+std::pair<double, double> edges_at(const std::vector<Point2>& ring, double z) {
+  double left = 1e300, right = -1e300;
+  for (std::size_t i = 0; i < ring.size(); ++i) {
+    const Point2& a = ring[i];
+    const Point2& b = ring[(i + 1) % ring.size()];
+    if ((a.z - z) * (b.z - z) > 0 || a.z == b.z) continue;
+    const double at = a.x + (b.x - a.x) * (z - a.z) / (b.z - a.z);
+    left = std::min(left, at);
+    right = std::max(right, at);
+  }
+  return {left, right};
+}
+
+// The cutter the drawing shows is the body the planner and the checker
+// sweep (tool_body.hpp): a 3/4 in 60 degree dovetail cutter (example) with a
+// 0.4 mm corner round and no neck diameter given, so the neck is the
+// assumed one (the small diameter). A drawing of its own once drew it with a
+// sharp corner and a neck of no width.
+TEST(drawing, cutter_outline_is_the_body_the_checker_sweeps) {
+  Tool t;
+  t.kind = ToolKind::Dovetail;
+  t.diameter = 19.05;
+  t.flute_length = 7.9375;
+  t.angle = 60;
+  t.corner_radius = 0.4;
+  const double x = 10, z = -5, top = 20;
+  const auto ring = tool_silhouette(t, x, z, top);
+  const ToolBody body = tool_body(t);
+  for (double h : {0.05, 0.2, 0.39, 1.0, 5.0, 7.9, 8.0, 12.0, 20.0, 24.9}) {
+    const auto [left, right] = edges_at(ring, z + h);
+    EXPECT_NEAR(right - x, body.radius_at(h), 1e-9) << h;
+    EXPECT_NEAR(x - left, body.radius_at(h), 1e-9) << h;
+  }
+  EXPECT_NEAR(edges_at(ring, z + 10).second - x, body_dimensions(t).flute_top_diameter / 2, 1e-9);
+  for (const Point2& p : ring) EXPECT_LE(p.z, top);
+  EXPECT_GT(ring_area(ring), 0);  // counter-clockwise
+}
+
 // The pin dimension spans the plan's final reading, and every dimension text
 // is the plan's number in the job's units (the text sheet prints the same).
 TEST(drawing, dimension_texts_are_the_plan_numbers) {
@@ -87,6 +129,17 @@ TEST(drawing, png_has_the_requested_size) {
   };
   EXPECT_EQ(be32(16), 640u);
   EXPECT_EQ(be32(20), 300u);
+}
+
+// cairo makes image surfaces of at most 32767 pixels a side (the limit in
+// cairo's image backend, from memory) and hands back a surface in an error
+// state rather than null: the renderer says so in words and owns nothing
+// afterwards (the sanitizer build would see a leak).
+TEST(drawing, png_larger_than_cairo_allows_is_refused_in_words) {
+  const Scene scene =
+      layout_drawing(build_drawing(plan_of("samples/stop-block-male.toml")), 270, 170);
+  testing::expect_input_error([&] { drawing_png(scene, 40000, 300); },
+                              {"cannot make the PNG drawing", "too big"});
 }
 
 // The PDF sheet's text, extracted by pdftotext (Debian poppler-utils), holds

@@ -2,6 +2,7 @@
 #include <fstream>
 #include <sstream>
 #include <string>
+#include <utility>
 
 #include <gtest/gtest.h>
 
@@ -167,6 +168,25 @@ TEST(rs274_interpreter, inverse_time_feed_needs_f_on_every_move) {
   EXPECT_NEAR(moves[0].feed_mm_per_min, 60, eps);  // 30 mm in half a minute
   expect_input_error([] { run_program("G93 G1 X30 F2\nX40\n"); },
                      {"test.ngc:2", "inverse time", "F"});
+}
+
+// NISTIR 6556 section 3.4, table 4 "Modal groups" (from memory): one code of
+// each group may share a line with one of every other group, never two of
+// one group (M7 with M8 excepted, section 3.6.4).
+TEST(rs274_interpreter, each_modal_group_takes_one_code_per_line) {
+  // Groups 1, 2, 3, 5, 6, 7, 8, 10, 12, 13 and M groups 4, 6, 7, 8, 9.
+  EXPECT_NO_THROW(
+      run_program("G0 G17 G90 G94 G21 G40 G49 G98 G54 G64 M48 T1 M6 S500 M3 M7 M8\n"
+                  "G0 X1\nM2\n"));
+  const std::pair<const char*, const char*> same[] = {
+      {"G90 G91", "G91"},       {"G93 G94", "G94"}, {"G20 G21", "G21"},     {"G40 G42", "G42"},
+      {"G43 H0 G49", "G49"},    {"G98 G99", "G99"}, {"G54 G59.3", "G59.3"}, {"G4 P1 G53", "G53"},
+      {"G92.1 G92.2", "G92.2"}, {"M48 M49", "M49"}, {"M7 M9", "M9"},
+  };
+  for (const auto& c : same) {
+    SCOPED_TRACE(c.first);
+    expect_input_error([&] { run_program(c.first); }, {c.second, "same modal group"});
+  }
 }
 
 // Rejected programs with the spec rule beside each (NISTIR 6556 chapter 3,

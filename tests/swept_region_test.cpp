@@ -149,7 +149,8 @@ TEST(swept_region, full_circle_around_the_plane_cuts_two_slots) {
   // sweeps an annulus; the plane through its centre cuts two 2R slots.
   const double r = 4, rho = 20, len = 10;
   const ToolBody body = tool_body(end_mill(2 * r, len));
-  const ArcMove circle{.from = {rho, 50, -2}, .to = {rho, 50, -2}, .centre = {0, 50, 0}};
+  const PathSegment circle{
+      {rho, 50, -2}, {rho, 50, -2}, ArcShape{.centre = {0, 50, 0}, .plane = Plane::XY}};
   const auto parts = sweep_arc(body, circle, 50);
   const SweptPart* flutes = find(parts, BodyPart::Flutes);
   ASSERT_TRUE(flutes);
@@ -161,30 +162,6 @@ TEST(swept_region, full_circle_around_the_plane_cuts_two_slots) {
   EXPECT_NEAR(row[0].high, -rho + r, 1e-4);
   EXPECT_NEAR(row[1].low, rho - r, 1e-4);
   EXPECT_NEAR(row[1].high, rho + r, 1e-4);
-}
-
-TEST(swept_region, arc_points_stay_within_the_chord_tolerance) {
-  const ArcMove arc{.from = {10, 0, 0},
-                    .to = {0, 10, -1},
-                    .centre = {0, 0, 0},
-                    .plane = ArcPlane::XY,
-                    .turn = Turn::CounterClockwise};
-  const auto points = arc_points(arc, 1e-4);
-  ASSERT_GT(points.size(), 2u);
-  EXPECT_EQ(points.front(), arc.from);
-  EXPECT_EQ(points.back(), arc.to);
-  for (std::size_t i = 0; i + 1 < points.size(); ++i) {
-    const Point3& a = points[i];
-    const Point3& b = points[i + 1];
-    EXPECT_NEAR(std::hypot(a.x, a.y), 10, 1e-12);
-    // Sagitta of the chord: R - distance of its midpoint from the centre.
-    EXPECT_LE(10 - std::hypot((a.x + b.x) / 2, (a.y + b.y) / 2), 1e-4);
-    EXPECT_GE(b.y, a.y);  // counter-clockwise from +X toward +Y
-  }
-  // Clockwise the other way round: three quarters of a turn.
-  const auto cw = arc_points(
-      {.from = {10, 0, 0}, .to = {0, 10, 0}, .centre = {0, 0, 0}, .turn = Turn::Clockwise}, 1e-4);
-  EXPECT_NEAR(static_cast<double>(cw.size() - 1) / static_cast<double>(points.size() - 1), 3, 0.05);
 }
 
 TEST(swept_region, body_parts_are_reported_apart) {

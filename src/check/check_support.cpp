@@ -106,9 +106,7 @@ SimTool make_sim_tool(const Tool& tool, int index, const CutterLimits& limits) {
   sim.body = tool_body(tool);
   sim.dovetail = tool.kind == ToolKind::Dovetail;
   if (sim.dovetail) sim.limits = limits;
-  const double top_radius = sim.dovetail
-                                ? tool.diameter / 2 - tool.flute_length * cot_deg(tool.angle)
-                                : tool.diameter / 2;
+  const double top_radius = body_dimensions(tool).flute_top_diameter / 2;
   sim.column.sections.push_back(
       {BodyPart::Flutes, {{tool.flute_length, top_radius}, {sim.body.top(), top_radius}}});
   for (const BodySection& section : sim.body.sections)

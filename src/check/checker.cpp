@@ -95,18 +95,6 @@ StationTarget target_at(const Job& job, double y, int id, double allowance) {
   return t;
 }
 
-ArcMove arc_move(const PathSegment& s) {
-  const ArcShape& a = *s.arc;
-  return {.from = s.start,
-          .to = s.end,
-          .centre = a.centre,
-          .plane = a.plane == Plane::XY   ? ArcPlane::XY
-                   : a.plane == Plane::ZX ? ArcPlane::ZX
-                                          : ArcPlane::YZ,
-          .turn = a.direction == ArcDirection::Clockwise ? Turn::Clockwise : Turn::CounterClockwise,
-          .extra_turns = std::max(0, a.turns - 1)};
-}
-
 class Checker {
  public:
   Checker(const Job& job, const CheckOptions& options)
@@ -257,11 +245,10 @@ void Checker::motion(const Event& event, const Motion& m, StationSimulator& sim)
                     .spindle_on = spindle_on,
                     .plunging = seg.end.z < seg.start.z - 1e-9};
     if (seg.arc) {
-      const ArcMove arc = arc_move(seg);
-      if (arc.plane != ArcPlane::XY) facts.plunging = true;  // part of it runs downward
-      sim.arc(*tool, arc, facts);
+      if (seg.arc->plane != Plane::XY) facts.plunging = true;  // part of it runs downward
+      sim.arc(*tool, seg, facts);
       if (!job_.fixtures.empty()) {
-        const auto points = arc_points(arc, 0.01);
+        const auto points = path_points(seg, 0.01);
         for (std::size_t i = 0; i + 1 < points.size(); ++i)
           fixtures(*tool, points[i], points[i + 1], event.line);
       }

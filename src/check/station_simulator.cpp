@@ -230,9 +230,9 @@ void StationSimulator::sweep_straight(const SimTool& tool, const Point3& from, c
   }
 }
 
-void StationSimulator::arc(const SimTool& tool, const ArcMove& arc, const MoveFacts& facts) {
+void StationSimulator::arc(const SimTool& tool, const PathSegment& arc, const MoveFacts& facts) {
   flush();
-  const std::vector<Point3> points = arc_points(arc, 1e-3);
+  const std::vector<Point3> points = path_points(arc, 1e-3);
   double low = points.front().y, high = low, top = points.front().z, bottom = top;
   double left = points.front().x, right = left;
   for (const Point3& p : points) {

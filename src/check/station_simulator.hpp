@@ -24,7 +24,7 @@ class StationSimulator {
   // line.
   void line(const SimTool& tool, const Point3& from, const Point3& to, const MoveFacts& facts);
   // One circular move.
-  void arc(const SimTool& tool, const ArcMove& arc, const MoveFacts& facts);
+  void arc(const SimTool& tool, const PathSegment& arc, const MoveFacts& facts);
   // Simulates the gathered run, if any.
   void flush();
 

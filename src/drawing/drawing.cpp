@@ -7,6 +7,7 @@
 #include <dovetailor/drawing/drawing.hpp>
 #include <dovetailor/geometry/pin_gauge.hpp>
 #include <dovetailor/geometry/section_region.hpp>
+#include <dovetailor/geometry/tool_body.hpp>
 
 namespace dovetailor {
 namespace {
@@ -33,19 +34,21 @@ double ring_area(const std::vector<Point2>& ring) {
 }
 
 std::vector<Point2> tool_silhouette(const Tool& tool, double x, double z, double top) {
-  const double r = tool.diameter / 2;
-  if (tool.kind == ToolKind::EndMill) return {{x - r, z}, {x + r, z}, {x + r, top}, {x - r, top}};
-  const double small = r - tool.flute_length * cot_deg(tool.angle);
-  const double neck = tool.neck_diameter / 2;
-  const double cone_top = z + tool.flute_length;
-  std::vector<Point2> ring = {{x - r, z}, {x + r, z}, {x + small, cone_top}};
-  if (top > cone_top) {
-    ring.push_back({x + neck, cone_top});
-    ring.push_back({x + neck, top});
-    ring.push_back({x - neck, top});
-    ring.push_back({x - neck, cone_top});
+  // Up the body's right side to `top`, then down its left.
+  const double height = top - z;
+  std::vector<Point2> ring;
+  for (const BodySection& section : tool_body(tool).sections) {
+    for (const ProfilePoint& p : section.profile) {
+      if (p.height > height) break;
+      ring.push_back({x + p.radius, z + p.height});
+    }
+    if (section.top() > height) {
+      ring.push_back({x + section.radius_at(height), top});
+      break;
+    }
   }
-  ring.push_back({x - small, cone_top});
+  for (std::size_t i = ring.size(); i-- > 0;)
+    if (ring[i].x > x) ring.push_back({2 * x - ring[i].x, ring[i].z});
   return ring;
 }
 

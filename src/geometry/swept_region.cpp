@@ -279,79 +279,11 @@ std::vector<SweptPart> sweep_line(const ToolBody& body, const Point3& from, cons
   return parts;
 }
 
-namespace {
-
-// In-plane coordinates (u, v) and the third axis w of a point, per plane:
-// XY -> (x, y | z), ZX -> (z, x | y), YZ -> (y, z | x) (RS-274 G17/G18/G19).
-std::array<double, 3> to_plane(const Point3& p, ArcPlane plane) {
-  switch (plane) {
-    case ArcPlane::XY:
-      return {p.x, p.y, p.z};
-    case ArcPlane::ZX:
-      return {p.z, p.x, p.y};
-    case ArcPlane::YZ:
-      return {p.y, p.z, p.x};
-  }
-  return {p.x, p.y, p.z};
-}
-
-Point3 from_plane(const std::array<double, 3>& q, ArcPlane plane) {
-  switch (plane) {
-    case ArcPlane::XY:
-      return {q[0], q[1], q[2]};
-    case ArcPlane::ZX:
-      return {q[1], q[2], q[0]};
-    case ArcPlane::YZ:
-      return {q[2], q[0], q[1]};
-  }
-  return {q[0], q[1], q[2]};
-}
-
-}  // namespace
-
-std::vector<Point3> arc_points(const ArcMove& arc, double tolerance) {
-  assert(tolerance > 0);
-  const auto a = to_plane(arc.from, arc.plane);
-  const auto b = to_plane(arc.to, arc.plane);
-  const auto c = to_plane(arc.centre, arc.plane);
-  const double r0 = std::hypot(a[0] - c[0], a[1] - c[1]);
-  const double r1 = std::hypot(b[0] - c[0], b[1] - c[1]);
-  const double theta0 = std::atan2(a[1] - c[1], a[0] - c[0]);
-  double sweep = std::atan2(b[1] - c[1], b[0] - c[0]) - theta0;
-  if (arc.turn == Turn::CounterClockwise) {
-    if (sweep <= 0) sweep += 2 * pi;
-    sweep += 2 * pi * arc.extra_turns;
-  } else {
-    if (sweep >= 0) sweep -= 2 * pi;
-    sweep -= 2 * pi * arc.extra_turns;
-  }
-  const double radius = std::max(r0, r1);
-  int n = 1;
-  if (radius > tolerance) {
-    const double step = 2 * std::acos(1 - tolerance / radius);
-    n = std::max(1, static_cast<int>(std::ceil(std::abs(sweep) / step)));
-  } else {
-    n = std::max(1, static_cast<int>(std::ceil(std::abs(sweep) / (pi / 2))));
-  }
-  std::vector<Point3> points;
-  points.reserve(static_cast<std::size_t>(n) + 1);
-  points.push_back(arc.from);
-  for (int i = 1; i < n; ++i) {
-    const double s = static_cast<double>(i) / n;
-    const double theta = theta0 + s * sweep;
-    const double r = r0 + s * (r1 - r0);
-    points.push_back(from_plane(
-        {c[0] + r * std::cos(theta), c[1] + r * std::sin(theta), a[2] + s * (b[2] - a[2])},
-        arc.plane));
-  }
-  points.push_back(arc.to);
-  return points;
-}
-
-std::vector<SweptPart> sweep_arc(const ToolBody& body, const ArcMove& arc, double plane_y,
+std::vector<SweptPart> sweep_arc(const ToolBody& body, const PathSegment& arc, double plane_y,
                                  const SweepOptions& options) {
+  assert(arc.arc);
   std::vector<SweptPart> parts;
-  const std::vector<Point3> points = arc_points(arc, options.tolerance);
+  const std::vector<Point3> points = path_points(arc, options.tolerance);
   for (std::size_t i = 0; i + 1 < points.size(); ++i) {
     for (SweptPart& swept : sweep_line(body, points[i], points[i + 1], plane_y, options))
       for (Ring& piece : swept.pieces) add_piece(parts, swept.part, std::move(piece));

@@ -92,13 +92,15 @@ BodyDimensions body_dimensions(const Tool& tool) {
   d.shank_assumed = !tool.shank_diameter;
   d.stickout_assumed = !tool.stickout;
   d.holder_diameter = tool.holder_diameter;
+  d.flute_top_diameter = tool.diameter;
   if (tool.kind != ToolKind::Dovetail) {
     d.shank_diameter = tool.shank_diameter.value_or(tool.diameter);
     d.stickout = tool.stickout.value_or(tool.flute_length + 0.5 * d.shank_diameter);
     return d;
   }
-  const double small = tool.diameter - 2 * tool.flute_length / std::tan(radians(tool.angle));
-  d.neck_diameter = tool.neck_diameter > 0 ? tool.neck_diameter : small;
+  const double cot_a = 1 / std::tan(radians(tool.angle));
+  d.flute_top_diameter = 2 * (tool.diameter / 2 - tool.flute_length * cot_a);
+  d.neck_diameter = tool.neck_diameter > 0 ? tool.neck_diameter : d.flute_top_diameter;
   d.shank_diameter = tool.shank_diameter.value_or(std::max(d.neck_diameter, 0.5 * tool.diameter));
   d.neck_length = neck_length_factor * tool.diameter;
   d.stickout = tool.stickout.value_or(tool.flute_length + d.neck_length + d.shank_diameter);
@@ -134,8 +136,7 @@ ToolBody tool_body(const Tool& tool, const ToolBodyOptions& options) {
     body.sections.push_back({BodyPart::Flutes, std::move(profile)});
   } else {
     assert(tool.angle > 0 && tool.angle < 90);
-    const double cot_a = 1 / std::tan(radians(tool.angle));
-    const double small = big - flutes_top * cot_a;
+    const double small = dims.flute_top_diameter / 2;
     assert(small > 0);
     auto profile = tip_profile(big, tool.angle, tool.corner_radius, options.chord_tolerance);
     profile.push_back({flutes_top, small});

@@ -1,12 +1,14 @@
 #include "scene_painter.hpp"
 
+#include <algorithm>
 #include <cmath>
-#include <stdexcept>
 #include <string>
 
 #include <cairo-pdf.h>
 
 #include <dovetailor/render/cairo_render.hpp>
+
+#include "cairo_handles.hpp"
 
 namespace dovetailor {
 namespace detail {
@@ -139,37 +141,36 @@ cairo_status_t append_bytes(void* closure, const unsigned char* data, unsigned i
 }  // namespace detail
 
 std::string drawing_png(const Scene& scene, int width_px, int height_px) {
-  cairo_surface_t* surface = cairo_image_surface_create(CAIRO_FORMAT_RGB24, width_px, height_px);
-  cairo_t* cr = cairo_create(surface);
-  cairo_set_source_rgb(cr, 1, 1, 1);
-  cairo_paint(cr);
+  const std::string what = "PNG drawing";
+  auto surface = detail::own_surface(
+      cairo_image_surface_create(CAIRO_FORMAT_RGB24, width_px, height_px), what);
+  auto cr = detail::make_context(surface.get(), what);
+  cairo_set_source_rgb(cr.get(), 1, 1, 1);
+  cairo_paint(cr.get());
   const double s = std::min(width_px / scene.width, height_px / scene.height);
-  cairo_scale(cr, s, s);
-  detail::paint_scene(cr, scene);
-  cairo_destroy(cr);
+  cairo_scale(cr.get(), s, s);
+  detail::paint_scene(cr.get(), scene);
+  detail::check_cairo(cairo_status(cr.get()), what);
+  cr.reset();
   std::string bytes;
-  const auto status = cairo_surface_write_to_png_stream(surface, detail::append_bytes, &bytes);
-  cairo_surface_destroy(surface);
-  if (status != CAIRO_STATUS_SUCCESS)
-    throw std::runtime_error(std::string("cairo: ") + cairo_status_to_string(status));
+  detail::check_cairo(
+      cairo_surface_write_to_png_stream(surface.get(), detail::append_bytes, &bytes), what);
   return bytes;
 }
 
 std::string drawing_pdf(const Scene& scene) {
   constexpr double pt_per_mm = 72 / 25.4;
+  const std::string what = "PDF drawing";
   std::string bytes;
-  cairo_surface_t* surface = cairo_pdf_surface_create_for_stream(
-      detail::append_bytes, &bytes, scene.width * pt_per_mm, scene.height * pt_per_mm);
-  cairo_t* cr = cairo_create(surface);
-  cairo_scale(cr, pt_per_mm, pt_per_mm);
-  detail::paint_scene(cr, scene);
-  cairo_show_page(cr);
-  const auto status = cairo_status(cr);
-  cairo_destroy(cr);
-  cairo_surface_finish(surface);
-  cairo_surface_destroy(surface);
-  if (status != CAIRO_STATUS_SUCCESS)
-    throw std::runtime_error(std::string("cairo: ") + cairo_status_to_string(status));
+  auto surface = detail::own_surface(
+      cairo_pdf_surface_create_for_stream(detail::append_bytes, &bytes, scene.width * pt_per_mm,
+                                          scene.height * pt_per_mm),
+      what);
+  auto cr = detail::make_context(surface.get(), what);
+  cairo_scale(cr.get(), pt_per_mm, pt_per_mm);
+  detail::paint_scene(cr.get(), scene);
+  cairo_show_page(cr.get());
+  detail::finish_surface(cr, surface, what);
   return bytes;
 }
 

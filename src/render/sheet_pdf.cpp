@@ -1,6 +1,5 @@
 #include <algorithm>
 #include <numeric>
-#include <stdexcept>
 
 #include <cairo-pdf.h>
 #include <fmt/format.h>
@@ -8,6 +7,7 @@
 #include <dovetailor/render/cairo_render.hpp>
 #include <dovetailor/report/sheet_text.hpp>
 
+#include "cairo_handles.hpp"
 #include "scene_painter.hpp"
 
 namespace dovetailor {
@@ -344,13 +344,15 @@ class SheetWriter {
 
 std::string sheet_pdf(const Sheet& sheet, const Drawing* drawing, Paper paper) {
   const Page page = paper == Paper::A4 ? Page{595.28, 841.89} : Page{612, 792};
+  const std::string what = "PDF pass sheet";
   std::string bytes;
-  cairo_surface_t* surface =
-      cairo_pdf_surface_create_for_stream(detail::append_bytes, &bytes, page.width, page.height);
-  cairo_pdf_surface_set_metadata(surface, CAIRO_PDF_METADATA_TITLE, sheet.title.c_str());
-  cairo_t* cr = cairo_create(surface);
+  auto surface = detail::own_surface(
+      cairo_pdf_surface_create_for_stream(detail::append_bytes, &bytes, page.width, page.height),
+      what);
+  cairo_pdf_surface_set_metadata(surface.get(), CAIRO_PDF_METADATA_TITLE, sheet.title.c_str());
+  auto cr = detail::make_context(surface.get(), what);
   {
-    SheetWriter w(sheet, page, cr);
+    SheetWriter w(sheet, page, cr.get());
     w.title_block();
     w.block(sheet.cautions);
     w.block(sheet.setup);
@@ -360,12 +362,7 @@ std::string sheet_pdf(const Sheet& sheet, const Drawing* drawing, Paper paper) {
     w.block(sheet.notes);
     w.finish();
   }
-  const auto status = cairo_status(cr);
-  cairo_destroy(cr);
-  cairo_surface_finish(surface);
-  cairo_surface_destroy(surface);
-  if (status != CAIRO_STATUS_SUCCESS)
-    throw std::runtime_error(std::string("cairo: ") + cairo_status_to_string(status));
+  detail::finish_surface(cr, surface, what);
   return bytes;
 }
 

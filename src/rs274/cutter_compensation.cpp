@@ -2,13 +2,14 @@
 
 #include <cmath>
 
+#include <dovetailor/base/units.hpp>
+
 namespace dovetailor::detail {
 
 namespace {
 
-constexpr double half_pi = 1.5707963267948966;
-constexpr double two_pi = 6.283185307179586;
-constexpr double pi_ = 3.141592653589793;
+constexpr double half_pi = pi / 2;
+constexpr double two_pi = 2 * pi;
 // Largest concave turn accepted, radians (NIST TOLERANCE_CONCAVE_CORNER,
 // from memory).
 constexpr double concave_tolerance = 0.01;
@@ -64,7 +65,7 @@ CompensatedMove compensate_move(const Point3& tool, const PathSegment& programme
   }
   const double normal = left ? alpha + half_pi : alpha - half_pi;
   const bool at_corner = std::hypot(tool.x - start.x, tool.y - start.y) > radius * 0.5;
-  if (at_corner && (beta < -concave_tolerance || beta > pi_ + concave_tolerance))
+  if (at_corner && (beta < -concave_tolerance || beta > pi + concave_tolerance))
     return {CompensationFault::ConcaveCorner, {}};
 
   CompensatedMove result;

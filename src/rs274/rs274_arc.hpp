@@ -1,28 +1,18 @@
 #pragma once
 
-// Arc geometry for the RS-274 interpreter: plane coordinates, centres from
-// the centre format (I J K) and the radius format (R), path lengths.
-// Internal to the core library.
+// Finding an arc's centre from the words of an RS-274 block: the centre
+// format (I J K) and the radius format (R). The arc itself, its plane
+// coordinates, angle and length are base/arc.hpp. Internal to the rs274
+// stage.
 
 #include <dovetailor/rs274/rs274_events.hpp>
 
 namespace dovetailor::detail {
 
-// The two in-plane coordinates and the normal one, in the order the NIST
-// interpreter uses (XY: x, y, z; ZX: z, x, y; YZ: y, z, x), so that
-// counterclockwise in (first, second) is counterclockwise seen from the
-// positive normal axis.
-struct PlaneCoordinates {
-  double first = 0;
-  double second = 0;
-  double normal = 0;
-};
-PlaneCoordinates in_plane(const Point3& p, Plane plane);
-Point3 from_plane(const PlaneCoordinates& c, Plane plane);
-
 enum class ArcFault { None, SameEndPoints, RadiusTooSmall, RadiiDiffer, ZeroRadius };
 
-struct ArcCentre {
+// The centre the words give, or why they give none.
+struct FoundCentre {
   Point3 centre;
   ArcFault fault = ArcFault::None;
 };
@@ -32,19 +22,13 @@ struct ArcCentre {
 // of more than 180 degrees. Start and end must differ in the plane; |R| may
 // fall short of half the chord by at most `tolerance` (then the arc is a
 // half circle).
-ArcCentre centre_from_radius(const Point3& start, const Point3& end, double radius,
-                             ArcDirection direction, Plane plane, double tolerance);
+FoundCentre centre_from_radius(const Point3& start, const Point3& end, double radius,
+                               ArcDirection direction, Plane plane, double tolerance);
 
 // Centre format (section 3.5.3.2, from memory): the centre is the start plus
 // the offsets (always incremental); the radii to start and end may differ by
 // at most `tolerance`.
-ArcCentre centre_from_offsets(const Point3& start, const Point3& end, double first_offset,
-                              double second_offset, Plane plane, double tolerance);
-
-// Swept angle in radians, in (0, 2*pi] (a full circle when the ends agree
-// in the plane), times the turns.
-double swept_angle(const PathSegment& arc_segment);
-// Length of a line, arc or helix.
-double path_length(const PathSegment& segment);
+FoundCentre centre_from_offsets(const Point3& start, const Point3& end, double first_offset,
+                                double second_offset, Plane plane, double tolerance);
 
 }  // namespace dovetailor::detail

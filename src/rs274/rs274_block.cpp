@@ -27,20 +27,6 @@ namespace {
 
 std::string upper(char letter) { return std::string(1, static_cast<char>(letter - 'a' + 'A')); }
 
-bool is_word_letter(char c) {
-  switch (c) {
-    case 'e':
-    case 'n':
-    case 'o':
-    case 'u':
-    case 'v':
-    case 'w':
-      return false;
-    default:
-      return c >= 'a' && c <= 'z';
-  }
-}
-
 void read_line_number(detail::Rs274Line& line, Rs274Block& block) {
   const auto at = line.position();
   line.advance();  // 'n'
@@ -117,7 +103,7 @@ Rs274Block read_rs274_block(std::string_view text, int line_index, const std::st
       line.fail("the line number N must come first on the line (after any '/')", "N");
     } else if (c == 'g' || c == 'm') {
       read_code(line, block, c, parameters, limits);
-    } else if (is_word_letter(c)) {
+    } else if (word_of(c)) {
       const auto at = line.position();
       const int column = line.column();
       line.advance();

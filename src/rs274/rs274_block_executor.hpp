@@ -13,6 +13,8 @@
 #include <dovetailor/rs274/rs274_interpreter.hpp>
 
 #include "cutter_compensation.hpp"
+#include "rs274_arc.hpp"
+#include "rs274_modal_groups.hpp"
 
 namespace dovetailor {
 
@@ -26,11 +28,31 @@ class Rs274BlockExecutor {
  private:
   // --- reading the block ---
   void classify();
+  void classify_m_codes();
 
-  bool homing() const { return g_[0] && (g_[0]->number == 280 || g_[0]->number == 300); }
-  bool non_modal(int code) const { return g_[0] && g_[0]->number == code; }
+  // The code the line gives in `group`, if any.
+  const std::optional<Rs274Code>& given(detail::GGroup group) const {
+    return g_[detail::group_index(group)];
+  }
+  const std::optional<Rs274Code>& given(detail::MGroup group) const {
+    return m_[detail::group_index(group)];
+  }
+  // The line gives `code` (in its group).
+  bool gives(detail::GGroup group, GCode code) const {
+    const auto& slot = given(group);
+    return slot && slot->number == code_number(code);
+  }
+  static GCode g_of(const Rs274Code& c) { return static_cast<GCode>(c.number); }
+  static MCode m_of(const Rs274Code& c) { return static_cast<MCode>(c.number); }
+  // The non-modal code of the line, if any.
+  const std::optional<Rs274Code>& non_modal() const { return given(detail::GGroup::NonModal); }
+  bool non_modal(GCode c) const { return gives(detail::GGroup::NonModal, c); }
+
+  bool homing() const { return non_modal(GCode::Home) || non_modal(GCode::SecondHome); }
   // G28, G30, G10 and G92 take the axis words for themselves.
-  bool takes_axis_words() const { return homing() || non_modal(100) || non_modal(920); }
+  bool takes_axis_words() const {
+    return homing() || non_modal(GCode::SetCoordinateData) || non_modal(GCode::AxisOffset);
+  }
 
   // G28 / G30 (NISTIR 6556 section 3.5.9, from memory): rapid to the
   // intermediate point given by the axis words, if any, then rapid with all
@@ -38,12 +60,16 @@ class Rs274BlockExecutor {
   // #5161-#5163 (G28) or #5181-#5183 (G30).
   void go_home();
 
-  bool axis_words() const { return b_.has('x') || b_.has('y') || b_.has('z'); }
+  bool axis_words() const { return b_.has(Word::X) || b_.has(Word::Y) || b_.has(Word::Z); }
 
   void decide_motion();
+  void check_g53() const;
   int first_axis_column() const;
-  void unused(char letter, const std::string& uses) const;
+  void unused(Word letter, const std::string& uses) const;
   void check_letters() const;
+  bool arc_motion() const { return motion_ && is_arc(*motion_); }
+  bool cycle_motion() const { return motion_ && is_canned_cycle(*motion_); }
+  bool motion_is(GCode c) const { return motion_ == c; }
 
   double mm(double value) const { return to_mm(value, st_.program_units); }
 
@@ -52,12 +78,15 @@ class Rs274BlockExecutor {
 
   // A length word in mm. Anything beyond 10 km is a typing error, and
   // refusing it keeps every coordinate the simulation sees finite.
-  double length(char letter) const;
+  double length(Word letter) const;
+  // The length word in mm, or `otherwise` when the line has none.
+  double length_or(Word letter, double otherwise) const {
+    return b_.has(letter) ? length(letter) : otherwise;
+  }
 
-  const Rs274Word& word(char letter) const { return *b_.word(letter); }
-  std::string upper(char letter) const { return std::string(1, static_cast<char>(letter - 32)); }
+  const Rs274Word& word(Word letter) const { return *b_.word(letter); }
 
-  int whole(char letter, int min, int max, const std::string& what) const;
+  int whole(Word letter, int min, int max, const std::string& what) const;
 
   // --- the steps of a block, in order ---
   void feed_and_speed();
@@ -65,10 +94,10 @@ class Rs274BlockExecutor {
   void dwell();
   void plane();
   const ToolTableEntry* find_tool(int number) const;
-  ToolTableEntry tool_for(char letter, int number, const std::string& code) const;
+  ToolTableEntry tool_for(Word letter, int number, const std::string& code) const;
   void compensation();
   void length_offset();
-  void coordinate_system(int code);
+  void coordinate_system(GCode code);
   // Makes system `index` (1..9) the selected one, its origin read from the
   // parameters now; the current point keeps its machine position.
   void select_system(int index, int column, const std::string& code);
@@ -91,7 +120,13 @@ class Rs274BlockExecutor {
   [[noreturn]] void compensation_fault(detail::CompensationFault fault) const;
   void straight(MotionKind kind);
   void arc();
+  void check_arc_words(const std::string& code) const;
+  detail::FoundCentre arc_centre(const Point3& start, const Point3& end,
+                                 ArcDirection direction) const;
+  void arc_fault(detail::ArcFault fault, const std::string& code) const;
   void cycle();
+  void check_cycle_modes(const std::string& code) const;
+  void cycle_dwell_and_peck(Rs274Interpreter::Cycle& c, bool retained, const std::string& code);
   void stops();
 
   // A canned cycle with repeats hands out its holes later; a stop follows them.
@@ -106,14 +141,14 @@ class Rs274BlockExecutor {
   Rs274Interpreter& in_;
   const Rs274Block& b_;
   MachineState& st_;
-  std::array<std::optional<Rs274Code>, 14> g_;
-  std::array<std::optional<Rs274Code>, 10> m_;
+  std::array<std::optional<Rs274Code>, detail::g_group_count> g_;
+  std::array<std::optional<Rs274Code>, detail::m_group_count> m_;
   bool both_coolants_ = false;
   bool speed_changed_ = false;
   bool retract_to_r_ = in_.retract_to_r_mode_;
-  int motion_ = -1;
+  std::optional<GCode> motion_;  // the motion this line makes, if any
   int motion_column_ = 0;
-  int previous_motion_ = 800;
+  GCode previous_motion_ = GCode::CycleCancel;
 };
 
 }  // namespace dovetailor

@@ -22,14 +22,14 @@ void Rs274Interpreter::next_hole() {
   move(MotionKind::Rapid, at(position_.z));
   if (position_.z != c.r) move(MotionKind::Rapid, at(c.r));
   switch (c.code) {
-    case 810:
+    case GCode::Drill:
       move(MotionKind::Feed, at(c.bottom));
       break;
-    case 820:
+    case GCode::DrillDwell:
       move(MotionKind::Feed, at(c.bottom));
       push(c.line, Dwell{c.dwell});
       break;
-    case 830: {
+    case GCode::PeckDrill: {
       // Back to R after each peck, then rapid to just above the last depth
       // (0.010 in in the NIST interpreter, from memory).
       const double clearance = std::min(0.254, c.peck / 2);
@@ -43,11 +43,11 @@ void Rs274Interpreter::next_hole() {
       move(MotionKind::Feed, at(c.bottom));
       break;
     }
-    case 850:
+    case GCode::Bore:
       move(MotionKind::Feed, at(c.bottom));
       move(MotionKind::Feed, at(c.r));
       break;
-    case 890:
+    case GCode::BoreDwell:
       move(MotionKind::Feed, at(c.bottom));
       push(c.line, Dwell{c.dwell});
       move(MotionKind::Feed, at(c.r));

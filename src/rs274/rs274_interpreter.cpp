@@ -20,15 +20,16 @@ Rs274Interpreter::Rs274Interpreter(ProgramSource& source, InterpreterOptions opt
     return parameters_.valid(number) ? to_mm(parameters_.get(number), units) : 0.0;
   };
   int system = 1;
-  if (parameters_.valid(5220)) {
-    const double n = parameters_.get(5220);
+  if (parameters_.valid(parameter::selected_system)) {
+    const double n = parameters_.get(parameter::selected_system);
     if (n >= 1 && n <= 9 && n == std::floor(n)) system = static_cast<int>(n);
-    parameters_.set(5220, system);
+    parameters_.set(parameter::selected_system, system);
   }
-  const int first = 5221 + 20 * (system - 1);
+  const int first = parameter::system_origin(system);
   state_.coordinate_system = system;
   state_.work_offset_mm = {stored(first), stored(first + 1), stored(first + 2)};
-  state_.axis_offset_mm = {stored(5211), stored(5212), stored(5213)};
+  const int g92 = parameter::axis_offset;
+  state_.axis_offset_mm = {stored(g92), stored(g92 + 1), stored(g92 + 2)};
   position_ = options_.start_mm;
 }
 

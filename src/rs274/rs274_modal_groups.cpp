@@ -1,115 +1,102 @@
 #include "rs274_modal_groups.hpp"
 
-#include <fmt/format.h>
+#include <array>
 
 namespace dovetailor::detail {
 
-// Modal groups of G codes (NISTIR 6556 table 4 "Modal groups", from
-// memory). Codes are times ten. -1: not an RS-274/NGC code; -2: an
-// RS-274/NGC code the checker does not simulate.
-int g_group(int code) {
-  switch (code) {
-    case 0:
-    case 10:
-    case 20:
-    case 30:
-    case 800:
-    case 810:
-    case 820:
-    case 830:
-    case 850:
-    case 890:
-      return 1;
-    case 170:
-    case 180:
-    case 190:
-      return 2;
-    case 900:
-    case 910:
-      return 3;
-    case 930:
-    case 940:
-      return 5;
-    case 200:
-    case 210:
-      return 6;
-    case 400:
-    case 410:
-    case 420:
-      return 7;
-    case 430:
-    case 490:
-      return 8;
-    case 980:
-    case 990:
-      return 10;
-    case 540:
-    case 550:
-    case 560:
-    case 570:
-    case 580:
-    case 590:
-    case 591:
-    case 592:
-    case 593:
-      return 12;
-    case 610:
-    case 611:
-    case 640:
-      return 13;
-    case 40:
-    case 100:
-    case 280:
-    case 300:
-    case 530:
-    case 920:
-    case 921:
-    case 922:
-    case 923:
-      return 0;
-    case 382:
-    case 840:
-    case 860:
-    case 870:
-    case 880:
-      return -2;
-    default:
-      return -1;
-  }
+namespace {
+
+using G = GCode;
+using GG = GGroup;
+
+// NISTIR 6556 table 4 "Modal groups" (from memory).
+constexpr std::array g_table{
+    GCodeClass{G::Rapid, GG::Motion},
+    GCodeClass{G::Linear, GG::Motion},
+    GCodeClass{G::ArcClockwise, GG::Motion},
+    GCodeClass{G::ArcCounterclockwise, GG::Motion},
+    GCodeClass{G::StraightProbe, GG::Motion, false},
+    GCodeClass{G::CycleCancel, GG::Motion},
+    GCodeClass{G::Drill, GG::Motion},
+    GCodeClass{G::DrillDwell, GG::Motion},
+    GCodeClass{G::PeckDrill, GG::Motion},
+    GCodeClass{G::Tap, GG::Motion, false},
+    GCodeClass{G::Bore, GG::Motion},
+    GCodeClass{G::BoreSpindleStop, GG::Motion, false},
+    GCodeClass{G::BackBore, GG::Motion, false},
+    GCodeClass{G::BoreManualOut, GG::Motion, false},
+    GCodeClass{G::BoreDwell, GG::Motion},
+    GCodeClass{G::PlaneXY, GG::Plane},
+    GCodeClass{G::PlaneZX, GG::Plane},
+    GCodeClass{G::PlaneYZ, GG::Plane},
+    GCodeClass{G::Absolute, GG::Distance},
+    GCodeClass{G::Incremental, GG::Distance},
+    GCodeClass{G::InverseTime, GG::FeedMode},
+    GCodeClass{G::UnitsPerMinute, GG::FeedMode},
+    GCodeClass{G::Inch, GG::Units},
+    GCodeClass{G::Millimetre, GG::Units},
+    GCodeClass{G::CompensationOff, GG::CutterCompensation},
+    GCodeClass{G::CompensationLeft, GG::CutterCompensation},
+    GCodeClass{G::CompensationRight, GG::CutterCompensation},
+    GCodeClass{G::LengthOffset, GG::LengthOffset},
+    GCodeClass{G::LengthOffsetCancel, GG::LengthOffset},
+    GCodeClass{G::ReturnToOldZ, GG::ReturnMode},
+    GCodeClass{G::ReturnToR, GG::ReturnMode},
+    GCodeClass{G::System1, GG::CoordinateSystem},
+    GCodeClass{G::System2, GG::CoordinateSystem},
+    GCodeClass{G::System3, GG::CoordinateSystem},
+    GCodeClass{G::System4, GG::CoordinateSystem},
+    GCodeClass{G::System5, GG::CoordinateSystem},
+    GCodeClass{G::System6, GG::CoordinateSystem},
+    GCodeClass{G::System7, GG::CoordinateSystem},
+    GCodeClass{G::System8, GG::CoordinateSystem},
+    GCodeClass{G::System9, GG::CoordinateSystem},
+    GCodeClass{G::ExactPath, GG::PathControl},
+    GCodeClass{G::ExactStop, GG::PathControl},
+    GCodeClass{G::Continuous, GG::PathControl},
+    GCodeClass{G::Dwell, GG::NonModal},
+    GCodeClass{G::SetCoordinateData, GG::NonModal},
+    GCodeClass{G::Home, GG::NonModal},
+    GCodeClass{G::SecondHome, GG::NonModal},
+    GCodeClass{G::MachineCoordinates, GG::NonModal},
+    GCodeClass{G::AxisOffset, GG::NonModal},
+    GCodeClass{G::AxisOffsetClear, GG::NonModal},
+    GCodeClass{G::AxisOffsetSuspend, GG::NonModal},
+    GCodeClass{G::AxisOffsetRestore, GG::NonModal},
+};
+
+using M = MCode;
+using MG = MGroup;
+
+constexpr std::array m_table{
+    MCodeClass{M::ProgramStop, MG::Stopping},
+    MCodeClass{M::OptionalStop, MG::Stopping},
+    MCodeClass{M::ProgramEnd, MG::Stopping},
+    MCodeClass{M::ProgramEndRewind, MG::Stopping},
+    MCodeClass{M::PalletStop, MG::Stopping},
+    MCodeClass{M::ToolChange, MG::ToolChange},
+    MCodeClass{M::SpindleClockwise, MG::Spindle},
+    MCodeClass{M::SpindleCounterclockwise, MG::Spindle},
+    MCodeClass{M::SpindleStop, MG::Spindle},
+    MCodeClass{M::Mist, MG::Coolant},
+    MCodeClass{M::Flood, MG::Coolant},
+    MCodeClass{M::CoolantOff, MG::Coolant},
+    MCodeClass{M::OverridesOn, MG::Overrides},
+    MCodeClass{M::OverridesOff, MG::Overrides},
+};
+
+}  // namespace
+
+std::optional<GCodeClass> classify_g_code(int number) {
+  for (const GCodeClass& row : g_table)
+    if (code_number(row.code) == number) return row;
+  return std::nullopt;
 }
 
-// M code groups (same table): 4 stopping, 6 tool change, 7 spindle,
-// 8 coolant, 9 override switches.
-int m_group(int code) {
-  switch (code) {
-    case 0:
-    case 1:
-    case 2:
-    case 30:
-    case 60:
-      return 4;
-    case 6:
-      return 6;
-    case 3:
-    case 4:
-    case 5:
-      return 7;
-    case 7:
-    case 8:
-    case 9:
-      return 8;
-    case 48:
-    case 49:
-      return 9;
-    default:
-      return -1;
-  }
+std::optional<MCodeClass> classify_m_code(int number) {
+  for (const MCodeClass& row : m_table)
+    if (code_number(row.code) == number) return row;
+  return std::nullopt;
 }
-
-std::string g_name(int code) {
-  return code % 10 ? fmt::format("G{}.{}", code / 10, code % 10) : fmt::format("G{}", code / 10);
-}
-
-std::string m_name(int code) { return fmt::format("M{}", code); }
 
 }  // namespace dovetailor::detail

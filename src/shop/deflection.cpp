@@ -62,8 +62,7 @@ ToolBeam tool_beam(const Tool& tool) {
     beam.sections = {{d.stickout - tool.flute_length, d.shank_diameter},
                      {tool.flute_length, fluted_diameter_factor * tool.diameter}};
   } else {
-    const double small = tool.diameter - 2 * tool.flute_length / std::tan(radians(tool.angle));
-    const double head = std::max(d.neck_diameter, fluted_diameter_factor * small);
+    const double head = std::max(d.neck_diameter, fluted_diameter_factor * d.flute_top_diameter);
     beam.sections = {{d.stickout - tool.flute_length - d.neck_length, d.shank_diameter},
                      {d.neck_length, d.neck_diameter},
                      {tool.flute_length, head}};

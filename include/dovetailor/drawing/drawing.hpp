@@ -110,8 +110,9 @@ Drawing build_drawing(const Plan& plan);
 std::vector<Point2> add_stock(Drawing& drawing, const Job& job);
 
 // The silhouette of a tool in the section with its axis at x and its tip at
-// z, up to `top` (mm): end mill a rectangle of its diameter; dovetail cutter
-// the cone of its flutes (large diameter at the tip), then its neck.
+// z, up to `top` (mm): the profile of its body (tool_body.hpp, the model the
+// planner and the checker use, with the same assumptions for what the job
+// leaves out): flutes with any corner radius, then neck, shank and holder.
 std::vector<Point2> tool_silhouette(const Tool& tool, double x, double z, double top);
 
 // How a reading is taken, as a legend says it: "over the pins", "between

@@ -2,6 +2,7 @@
 
 #include <vector>
 
+#include <dovetailor/base/arc.hpp>
 #include <dovetailor/base/point.hpp>
 #include <dovetailor/geometry/section_region.hpp>
 #include <dovetailor/geometry/tool_body.hpp>
@@ -72,33 +73,10 @@ bool reaches_plane(const ToolBody& body, const Point3& from, const Point3& to, d
 std::vector<SweptPart> sweep_line(const ToolBody& body, const Point3& from, const Point3& to,
                                   double plane_y, const SweepOptions& options = {});
 
-// The plane a circular move turns in (RS-274 G17, G18, G19), and the
-// direction seen from the positive end of the third axis.
-enum class ArcPlane { XY, ZX, YZ };
-enum class Turn { Clockwise, CounterClockwise };
-
-// A circular or helical move: from `from` to `to` about `centre` (only its
-// two in-plane coordinates count) in `plane`, plus `extra_turns` full turns;
-// the third axis moves linearly (helix). A move that ends where it starts is
-// a full circle.
-struct ArcMove {
-  Point3 from;
-  Point3 to;
-  Point3 centre;
-  ArcPlane plane = ArcPlane::XY;
-  Turn turn = Turn::CounterClockwise;
-  int extra_turns = 0;
-
-  bool operator==(const ArcMove&) const = default;
-};
-
-// The arc as a chain of points, first `from`, last `to`, whose chords lie no
-// further than `tolerance` from the arc. The radius blends linearly from the
-// start radius to the end radius (they differ only by a program's rounding).
-std::vector<Point3> arc_points(const ArcMove& arc, double tolerance);
-
-// The area a circular move (G2/G3) sweeps in the plane y = plane_y.
-std::vector<SweptPart> sweep_arc(const ToolBody& body, const ArcMove& arc, double plane_y,
+// The area a circular or helical move (G2/G3) sweeps in the plane
+// y = plane_y: the chords of path_points (base/arc.hpp) swept as lines.
+// `arc.arc` must be set.
+std::vector<SweptPart> sweep_arc(const ToolBody& body, const PathSegment& arc, double plane_y,
                                  const SweepOptions& options = {});
 
 // The area of one swept part as a region (the union of its pieces).

@@ -72,6 +72,9 @@ struct ToolBody {
 inline constexpr double neck_length_factor = 0.5;
 
 struct BodyDimensions {
+  // Where the flutes end: a dovetail cutter's small diameter D - 2 h_f cot(a)
+  // at the flute length h_f, else the tool's diameter.
+  double flute_top_diameter = 0;
   double neck_diameter = 0;  // dovetail cutter; 0 for an end mill
   double neck_length = 0;    // from the top of the flutes; 0 for an end mill
   double shank_diameter = 0;

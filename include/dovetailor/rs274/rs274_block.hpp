@@ -7,6 +7,7 @@
 #include <string_view>
 #include <vector>
 
+#include <dovetailor/rs274/rs274_codes.hpp>
 #include <dovetailor/rs274/rs274_expression.hpp>
 #include <dovetailor/rs274/rs274_parameters.hpp>
 
@@ -85,6 +86,8 @@ struct Rs274Block {
 
   const std::optional<Rs274Word>& word(char letter) const;  // letter in 'a' .. 'z'
   bool has(char letter) const { return word(letter).has_value(); }
+  const std::optional<Rs274Word>& word(Word w) const { return word(static_cast<char>(w)); }
+  bool has(Word w) const { return word(w).has_value(); }
   bool empty() const;  // no codes, words or settings (a blank or comment line)
 
   bool operator==(const Rs274Block&) const = default;

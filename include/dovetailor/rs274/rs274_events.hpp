@@ -4,6 +4,7 @@
 #include <variant>
 #include <vector>
 
+#include <dovetailor/base/arc.hpp>
 #include <dovetailor/base/point.hpp>
 #include <dovetailor/base/units.hpp>
 
@@ -15,36 +16,7 @@ namespace dovetailor {
 // positions are of the tool tip (after any tool length offset), feeds are
 // mm/min, spindle speeds rev/min, times seconds.
 
-// The plane an arc lies in and its normal axis: XY (G17, normal Z),
-// ZX (G18, normal Y), YZ (G19, normal X).
-enum class Plane { XY, ZX, YZ };
-
-// Seen from the positive end of the plane's normal axis looking toward the
-// origin: G2 is clockwise, G3 counterclockwise (NISTIR 6556 section 3.5.3,
-// from memory).
-enum class ArcDirection { Clockwise, Counterclockwise };
-
-struct ArcShape {
-  // Centre in the plane; its normal-axis coordinate is the segment start's.
-  Point3 centre;
-  Plane plane = Plane::XY;
-  ArcDirection direction = ArcDirection::Clockwise;
-  // Times round: 1 for any arc up to one full circle. A segment whose start
-  // and end agree in the plane is a full circle. The normal-axis coordinate
-  // goes linearly from start to end (a helix when they differ).
-  int turns = 1;
-
-  bool operator==(const ArcShape&) const = default;
-};
-
-// A straight line when `arc` is empty.
-struct PathSegment {
-  Point3 start;
-  Point3 end;
-  std::optional<ArcShape> arc;
-
-  bool operator==(const PathSegment&) const = default;
-};
+// Arcs, planes and path segments: base/arc.hpp.
 
 enum class MotionKind { Rapid, Feed, Arc };
 

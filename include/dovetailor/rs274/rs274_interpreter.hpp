@@ -10,6 +10,7 @@
 #include <dovetailor/base/units.hpp>
 #include <dovetailor/rs274/program_source.hpp>
 #include <dovetailor/rs274/rs274_block.hpp>
+#include <dovetailor/rs274/rs274_codes.hpp>
 #include <dovetailor/rs274/rs274_events.hpp>
 #include <dovetailor/rs274/rs274_parameters.hpp>
 
@@ -117,7 +118,7 @@ class Rs274Interpreter {
 
  private:
   struct Cycle {
-    int code = 0;  // 810 .. 890
+    GCode code = GCode::Drill;  // G81 .. G89
     int holes_left = 0;
     double x = 0, y = 0;    // this hole
     double dx = 0, dy = 0;  // increment per repeat (G91), 0 in G90
@@ -143,7 +144,7 @@ class Rs274Interpreter {
   Point3 position_;
   std::optional<Point3> programmed_;  // programmed point while compensating
   bool compensation_entry_pending_ = false;
-  int motion_mode_ = 800;           // G code times ten
+  GCode motion_mode_ = GCode::CycleCancel;
   bool retract_to_r_mode_ = false;  // G99; G98 (back to the old Z) at the start
   std::optional<double> cycle_r_, cycle_z_, cycle_p_, cycle_q_;  // kept cycle words, mm / s
   std::optional<Cycle> cycle_;
