@@ -82,26 +82,10 @@ std::string sizing_words(const Plan& plan, const Post& post, SizingStyle style, 
          "cutter's axis. After measuring, run dovetailor trim for a short corrective program.";
 }
 
-}  // namespace
-
-std::vector<std::string> header_lines(const Plan& plan, const Post& post,
-                                      const ProgramOptions& options, Units units,
-                                      SizingStyle style) {
-  const Units u = units;
+// The stock, the target and its final reading.
+void part_lines(std::vector<std::string>& out, const Plan& plan, Units u) {
   const Job& job = plan.job;
   const auto& t = plan.target;
-  const bool female = t.type == DovetailType::Female;
-  const std::string part = job.part.name.empty() ? file_name(job.source) : job.part.name;
-  std::vector<std::string> out;
-  out.push_back(options.title.empty() ? "dovetailor program: " + part : options.title);
-  out.push_back(fmt::format("job file {}; post {}", file_name(job.source), post.name));
-  if (!options.date.empty()) out.push_back("written " + options.date);
-  out.push_back(fmt::format("units: {}, {}; feeds in {}/min", unit_name(units),
-                            units == Units::Inch ? "G20" : "G21", unit_symbol(units)));
-  out.push_back(
-      "work zero, set in the active work offset: top face of the stock, on the dovetail centre "
-      "line, "
-      "at the front end; the slide runs along +Y");
   out.push_back(fmt::format("stock {:n} x {:n} x {}, X by Y by Z, below Z0",
                             shown(job.stock.width, u), shown(job.stock.length, u),
                             shown(job.stock.height, u)));
@@ -119,6 +103,11 @@ std::vector<std::string> header_lines(const Plan& plan, const Post& post,
                               shown(plan.final_reading.value, u), shown(band.low, u),
                               shown(band.high, u)));
   }
+}
+
+// Each tool once, in the order the operations first use it, and how tool
+// lengths are set.
+void tool_lines(std::vector<std::string>& out, const Plan& plan, const Post& post, Units u) {
   out.push_back("tools:");
   for (const auto& op : plan.operations) {
     bool seen = false;
@@ -126,27 +115,50 @@ std::vector<std::string> header_lines(const Plan& plan, const Post& post,
       if (&other == &op) break;
       seen = seen || other.tool == op.tool;
     }
-    const Tool* tool = find_tool(job, op.tool);
+    const Tool* tool = find_tool(plan.job, op.tool);
     if (tool && !seen) out.push_back(tool_words(*tool, plan, u));
   }
   if (!post.tool_length_offset)
     out.push_back(
         "no tool length offsets: touch off each tool on the top face, Z0, after the "
         "change");
-  switch (options.coolant) {
+}
+
+std::string coolant_line(CoolantChoice coolant, const Post& post) {
+  switch (coolant) {
     case CoolantChoice::Flood:
-      out.push_back(fmt::format("coolant: flood, M{}, as asked when the program was written",
-                                post.coolant.flood.value_or(0)));
-      break;
+      return fmt::format("coolant: flood, M{}, as asked when the program was written",
+                         post.coolant.flood.value_or(0));
     case CoolantChoice::Mist:
-      out.push_back(fmt::format("coolant: mist, M{}, as asked when the program was written",
-                                post.coolant.mist.value_or(0)));
-      break;
+      return fmt::format("coolant: mist, M{}, as asked when the program was written",
+                         post.coolant.mist.value_or(0));
     case CoolantChoice::Off:
-      out.push_back("coolant: none, cut dry");
       break;
   }
-  out.push_back(sizing_words(plan, post, style, u));
+  return "coolant: none, cut dry";
+}
+
+}  // namespace
+
+std::vector<std::string> header_lines(const Plan& plan, const Post& post,
+                                      const ProgramOptions& options, Units units,
+                                      SizingStyle style) {
+  const Job& job = plan.job;
+  const std::string part = job.part.name.empty() ? file_name(job.source) : job.part.name;
+  std::vector<std::string> out;
+  out.push_back(options.title.empty() ? "dovetailor program: " + part : options.title);
+  out.push_back(fmt::format("job file {}; post {}", file_name(job.source), post.name));
+  if (!options.date.empty()) out.push_back("written " + options.date);
+  out.push_back(fmt::format("units: {}, {}; feeds in {}/min", unit_name(units),
+                            units == Units::Inch ? "G20" : "G21", unit_symbol(units)));
+  out.push_back(
+      "work zero, set in the active work offset: top face of the stock, on the dovetail centre "
+      "line, "
+      "at the front end; the slide runs along +Y");
+  part_lines(out, plan, units);
+  tool_lines(out, plan, post, units);
+  out.push_back(coolant_line(options.coolant, post));
+  out.push_back(sizing_words(plan, post, style, units));
   // The plan's warnings, as the text plan gives them (the writer makes
   // parentheses in them brackets, so no comment nests).
   for (const auto& w : plan.warnings) out.push_back("WARNING: " + w);
