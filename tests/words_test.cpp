@@ -6,6 +6,7 @@
 
 #include <dovetailor/base/units.hpp>
 #include <dovetailor/base/words.hpp>
+#include <dovetailor/check/check_words.hpp>
 #include <dovetailor/gcode/gcode_words.hpp>
 #include <dovetailor/geometry/pin_gauge.hpp>
 #include <dovetailor/input/job_reader.hpp>
@@ -54,6 +55,10 @@ TEST(words, every_file_key_round_trips) {
   expect_round_trip<CommonDial>(4);
   expect_round_trip<ReadingMethod>(3);
   expect_round_trip<CoolantChoice>(3);
+  expect_round_trip<FindingKind>(15);
+  expect_round_trip<Severity>(2);
+  expect_round_trip<ToolWord>(5);
+  expect_round_trip<Overload>(2);
 }
 
 TEST(words, unknown_key_reads_as_nothing) {
