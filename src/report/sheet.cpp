@@ -197,7 +197,6 @@ CheckpointBox checkpoint_box(const Plan& plan, const Checkpoint& c, char letter,
 std::vector<SheetFact> title_facts(const Plan& plan, const SheetOptions& o, const Show& s) {
   const Job& job = plan.job;
   const auto& t = plan.target;
-  const bool female = t.type == DovetailType::Female;
   std::vector<SheetFact> f;
   f.push_back({"Part", job.part.name.empty() ? job.source : job.part.name});
   f.push_back({"Material", job.part.material.empty() ? "-" : job.part.material});
