@@ -6,7 +6,7 @@
 
 #include <gtest/gtest.h>
 
-#include <dovetailor/base/length_text.hpp>
+#include <dovetailor/base/length.hpp>
 #include <dovetailor/check/checker.hpp>
 #include <dovetailor/drawing/check_drawing.hpp>
 #include <dovetailor/drawing/drawing_scene.hpp>
@@ -68,7 +68,7 @@ TEST(check_drawing, clean_program_draws_the_part_it_cuts_and_no_defects) {
   bool dimensioned = false;
   for (const Dimension& dim : d.dimensions)
     dimensioned = dimensioned || (dim.kind == DimensionKind::Horizontal &&
-                                  dim.text == length_text(reading, Units::Millimetre));
+                                  dim.text == fmt::format("{}", shown(reading, Units::Millimetre)));
   EXPECT_TRUE(dimensioned);
   EXPECT_NE(d.pin_label.find("in tolerance"), std::string::npos) << d.pin_label;
   EXPECT_NE(d.subtitle.find("station 2 of 3"), std::string::npos) << d.subtitle;

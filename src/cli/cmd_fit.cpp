@@ -8,6 +8,7 @@
 #include <fmt/format.h>
 #include <nlohmann/json.hpp>
 
+#include <dovetailor/base/length.hpp>
 #include <dovetailor/base/text_wrap.hpp>
 #include <dovetailor/geometry/fit.hpp>
 #include <dovetailor/input/job_reader.hpp>
@@ -15,7 +16,6 @@
 #include "commands.hpp"
 #include "file_io.hpp"
 #include "flags.hpp"
-#include "show.hpp"
 
 namespace dovetailor::cli {
 namespace {
@@ -80,7 +80,7 @@ FitResult fit_from_jobs(const FitOptions& o) {
   Job b = read_job(read_text_file(o.job_files[1]), o.job_files[1]);
   if (a.dovetail.type == b.dovetail.type)
     throw InputError(fmt::format("both jobs are {}; a fit needs one male and one female",
-                                 type_name(a.dovetail.type)),
+                                 key_of(a.dovetail.type)),
                      {b.source}, "dovetail.type");
   const Job& female = a.dovetail.type == DovetailType::Female ? a : b;
   const Job& male = a.dovetail.type == DovetailType::Male ? a : b;
@@ -115,9 +115,9 @@ FitResult fit_from_jobs(const FitOptions& o) {
 
 FitResult fit_from_flags(const FitOptions& o) {
   FitResult r;
-  r.units = parse_units(o.units);
+  r.units = parse_word<Units>(o.units, "--units");
   r.angle = require_flag(o.angle, "--angle", 0, 90);
-  r.angled_flanks = parse_sides(o.sides) == AngledSides::Both ? 2 : 1;
+  r.angled_flanks = parse_word<AngledSides>(o.sides, "--sides") == AngledSides::Both ? 2 : 1;
   const auto len = [&](double v, const char* flag) {
     return to_mm(require_flag(v, flag, 0, 1e4), r.units);
   };
@@ -131,7 +131,7 @@ FitResult fit_from_flags(const FitOptions& o) {
     if (o.female_reading <= 0)
       throw InputError(fmt::format("a reading between pins of {} or less means the pins "
                                    "overlap or touch; measure again, or use smaller pins",
-                                   length(0, r.units)),
+                                   shown(0, r.units)),
                        {"flags"}, "--female-reading");
     r.female = MeasuredPart{DovetailType::Female, to_mm(o.female_reading, r.units), r.female_pin,
                             r.female_depth};
@@ -161,11 +161,10 @@ void add_targets(FitResult& r) {
     r.target_female =
         reading_for_clearance(*r.male, female_target, r.angle, r.angled_flanks, *r.clearance);
     if (*r.target_female <= 0)
-      throw InputError(
-          fmt::format("the female would read {} between {} pins: pins that size "
-                      "would overlap in its groove; give smaller pins",
-                      length(*r.target_female, r.units), length(r.female_pin, r.units)),
-          {"flags"}, "--female-pin");
+      throw InputError(fmt::format("the female would read {} between {} pins: pins that size "
+                                   "would overlap in its groove; give smaller pins",
+                                   shown(*r.target_female, r.units), shown(r.female_pin, r.units)),
+                       {"flags"}, "--female-pin");
   }
 }
 
@@ -179,9 +178,9 @@ std::vector<std::string> fit_notes(const FitResult& r) {
     notes.push_back(fmt::format(
         "The male is {} deeper than the female: its top bears on the female's floor and "
         "holds the female's top face {} above the shelf, and the flanks close in by {} "
-        "({} x {} x cot {:g}).",
-        length(f.shelf_gap, u), length(f.shelf_gap, u),
-        length(f.shelf_clearance - f.lateral_clearance, u), r.angled_flanks, number(f.shelf_gap, u),
+        "({} x {:n} x cot {:g}).",
+        shown(f.shelf_gap, u), shown(f.shelf_gap, u),
+        shown(f.shelf_clearance - f.lateral_clearance, u), r.angled_flanks, shown(f.shelf_gap, u),
         r.angle));
   if (!f.can_assemble) {
     if (f.bearing_height <= 0)
@@ -191,12 +190,12 @@ std::vector<std::string> fit_notes(const FitResult& r) {
           fmt::format("CANNOT ASSEMBLE: the flanks interfere by {} where the parts "
                       "come to rest; cut the male's top down to the female's depth "
                       "or take the female's floor {} deeper.",
-                      length(-f.lateral_clearance, u), length(f.shelf_gap, u)));
+                      shown(-f.lateral_clearance, u), shown(f.shelf_gap, u)));
     else
       notes.push_back(
           fmt::format("CANNOT ASSEMBLE: the flanks interfere by {}; the female's mouth is narrower "
                       "than the male's root.",
-                      length(-f.lateral_clearance, u)));
+                      shown(-f.lateral_clearance, u)));
   }
   return notes;
 }
@@ -210,40 +209,40 @@ void print_text(const FitResult& r) {
   };
   if (r.female)
     row("Female reading between pins",
-        fmt::format("{} ({} pins, depth {})", length(r.female->reading, u), number(r.female_pin, u),
-                    length(r.female_depth, u)));
+        fmt::format("{} ({:n} pins, depth {})", shown(r.female->reading, u), shown(r.female_pin, u),
+                    shown(r.female_depth, u)));
   if (r.male)
-    row("Male reading over pins", fmt::format("{} ({} pins, depth {})", length(r.male->reading, u),
-                                              number(r.male_pin, u), length(r.male_depth, u)));
+    row("Male reading over pins", fmt::format("{} ({:n} pins, depth {})", shown(r.male->reading, u),
+                                              shown(r.male_pin, u), shown(r.male_depth, u)));
   if (r.fit) {
     const Fit& f = *r.fit;
     if (!r.female || !r.male)
       row("Depths",
-          fmt::format("female {}, male {}", length(r.female_depth, u), length(r.male_depth, u)));
+          fmt::format("female {}, male {}", shown(r.female_depth, u), shown(r.male_depth, u)));
     if (f.shelf_gap > 0) {
       row("Seat", "male's top on the female's floor");
-      row("Female top face above the shelf", length(f.shelf_gap, u));
-      row("Clearance at the shelf would be", signed_length(f.shelf_clearance, u));
+      row("Female top face above the shelf", fmt::format("{}", shown(f.shelf_gap, u)));
+      row("Clearance at the shelf would be", fmt::format("{:+}", shown(f.shelf_clearance, u)));
     } else {
       row("Seat", "female's top face on the male's shelf");
-      row("Male top below the female floor", length(f.floor_gap, u));
+      row("Male top below the female floor", fmt::format("{}", shown(f.floor_gap, u)));
     }
-    row("Lateral clearance",
-        signed_length(f.lateral_clearance, u) + (f.lateral_clearance < 0 ? "  INTERFERENCE" : ""));
-    row("  per flank", signed_length(f.lateral_clearance / r.angled_flanks, u));
-    row("Normal clearance", signed_length(f.normal_clearance, u));
-    row("Flanks face each other over", length(f.bearing_height, u));
+    row("Lateral clearance", fmt::format("{:+}", shown(f.lateral_clearance, u)) +
+                                 (f.lateral_clearance < 0 ? "  INTERFERENCE" : ""));
+    row("  per flank", fmt::format("{:+}", shown(f.lateral_clearance / r.angled_flanks, u)));
+    row("Normal clearance", fmt::format("{:+}", shown(f.normal_clearance, u)));
+    row("Flanks face each other over", fmt::format("{}", shown(f.bearing_height, u)));
     row("Assembles", f.can_assemble ? "yes" : "NO");
   }
   if (r.clearance) {
     fmt::print("\n");
-    row("Wanted lateral clearance", signed_length(*r.clearance, u));
+    row("Wanted lateral clearance", fmt::format("{:+}", shown(*r.clearance, u)));
     if (r.target_male)
       row("Aim the male over pins at",
-          fmt::format("{} ({} pins)", length(*r.target_male, u), number(r.male_pin, u)));
+          fmt::format("{} ({:n} pins)", shown(*r.target_male, u), shown(r.male_pin, u)));
     if (r.target_female)
       row("Aim the female between pins at",
-          fmt::format("{} ({} pins)", length(*r.target_female, u), number(r.female_pin, u)));
+          fmt::format("{} ({:n} pins)", shown(*r.target_female, u), shown(r.female_pin, u)));
   }
   for (const auto& note : fit_notes(r)) {
     fmt::print("\n");
@@ -262,25 +261,25 @@ void print_json(const FitResult& r) {
   j["convention"] =
       "female as low as it goes (top face on the male's shelf, or floor on the male's top "
       "when the male is deeper); lateral clearance is the total of both flanks there";
-  if (r.female) j["female_reading"] = json_length(r.female->reading, u);
-  if (r.male) j["male_reading"] = json_length(r.male->reading, u);
-  j["female_depth"] = json_length(r.female_depth, u);
-  j["male_depth"] = json_length(r.male_depth, u);
+  if (r.female) j["female_reading"] = length_value(r.female->reading, u);
+  if (r.male) j["male_reading"] = length_value(r.male->reading, u);
+  j["female_depth"] = length_value(r.female_depth, u);
+  j["male_depth"] = length_value(r.male_depth, u);
   if (r.fit) {
     const Fit& f = *r.fit;
-    j["lateral_clearance"] = json_length(f.lateral_clearance, u);
-    j["normal_clearance"] = json_length(f.normal_clearance, u);
-    j["shelf_clearance"] = json_length(f.shelf_clearance, u);
+    j["lateral_clearance"] = length_value(f.lateral_clearance, u);
+    j["normal_clearance"] = length_value(f.normal_clearance, u);
+    j["shelf_clearance"] = length_value(f.shelf_clearance, u);
     j["seat"] = f.shelf_gap > 0 ? "male-top-on-female-floor" : "female-top-on-male-shelf";
-    j["shelf_gap"] = json_length(f.shelf_gap, u);
-    j["floor_gap"] = json_length(f.floor_gap, u);
-    j["bearing_height"] = json_length(f.bearing_height, u);
+    j["shelf_gap"] = length_value(f.shelf_gap, u);
+    j["floor_gap"] = length_value(f.floor_gap, u);
+    j["bearing_height"] = length_value(f.bearing_height, u);
     j["can_assemble"] = f.can_assemble;
     j["notes"] = fit_notes(r);
   }
-  if (r.clearance) j["wanted_clearance"] = json_length(*r.clearance, u);
-  if (r.target_male) j["target_male_reading"] = json_length(*r.target_male, u);
-  if (r.target_female) j["target_female_reading"] = json_length(*r.target_female, u);
+  if (r.clearance) j["wanted_clearance"] = length_value(*r.clearance, u);
+  if (r.target_male) j["target_male_reading"] = length_value(*r.target_male, u);
+  if (r.target_female) j["target_female_reading"] = length_value(*r.target_female, u);
   fmt::print("{}\n", j.dump(2));
 }
 
@@ -302,10 +301,10 @@ void setup_fit(CLI::App& app) {
       "fit", "Clearance of a male/female pair, from two job files or from pin readings.");
   cmd->add_option("jobs", o->job_files, "Two job files, one male and one female (either order)");
   cmd->add_option("--units", o->units, "inch or mm (flags mode)")
-      ->check(CLI::IsMember({"inch", "mm"}));
+      ->check(CLI::IsMember(keys_of<Units>()));
   cmd->add_option("--angle", o->angle, "Flank angle, degrees");
   cmd->add_option("--sides", o->sides, "Angled flanks: both, left or right")
-      ->check(CLI::IsMember({"both", "left", "right"}));
+      ->check(CLI::IsMember(keys_of<AngledSides>()));
   cmd->add_option("--female-reading", o->female_reading, "Female reading between pins");
   cmd->add_option("--female-pin", o->female_pin, "Pin diameter used on the female");
   cmd->add_option("--female-depth", o->female_depth, "Female depth, floor to mouth");

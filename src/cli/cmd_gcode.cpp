@@ -7,6 +7,7 @@
 
 #include <dovetailor/base/error.hpp>
 #include <dovetailor/base/text_wrap.hpp>
+#include <dovetailor/gcode/gcode_words.hpp>
 #include <dovetailor/gcode/gcode_writer.hpp>
 #include <dovetailor/input/job_reader.hpp>
 #include <dovetailor/plan/planner.hpp>
@@ -14,6 +15,7 @@
 
 #include "commands.hpp"
 #include "file_io.hpp"
+#include "flags.hpp"
 #include "post_lookup.hpp"
 #include "program_output.hpp"
 
@@ -26,13 +28,6 @@ std::string today() {
   char text[16];
   std::strftime(text, sizeof text, "%Y-%m-%d", &local);
   return text;
-}
-
-CoolantChoice parse_coolant(const std::string& word) {
-  if (word == "flood") return CoolantChoice::Flood;
-  if (word == "mist") return CoolantChoice::Mist;
-  if (word == "off") return CoolantChoice::Off;
-  throw InputError("give flood, mist or off, not \"" + word + "\"", {}, "--coolant");
 }
 
 void print_plan_warnings(const Plan& plan) {
@@ -68,8 +63,8 @@ void run_gcode(const GcodeOptions& o) {
   const Job job = read_job(read_text_file(o.job_file), o.job_file);
   const Post post = load_post(o.post);
   const Plan p = plan(job);
-  const std::string program =
-      write_program(p, post, {.date = today(), .coolant = parse_coolant(o.coolant)});
+  const std::string program = write_program(
+      p, post, {.date = today(), .coolant = parse_word<CoolantChoice>(o.coolant, "--coolant")});
   const std::string output = o.output.empty() ? "-" : o.output;
   if (!is_standard_output(output)) refuse_job_file(output, o.job_file);
   write_output(output, program, o.force);

@@ -116,7 +116,7 @@ void print_json(const std::vector<const Material*>& materials, Units units) {
 }
 
 void run_materials(const MaterialsOptions& o) {
-  const Units units = parse_units(o.units);
+  const Units units = parse_word<Units>(o.units, "--units");
   const auto materials = chosen(o);
   if (o.json) {
     print_json(materials, units);
@@ -133,7 +133,7 @@ void setup_materials(CLI::App& app) {
       "materials", "The work materials known, their names, cutting speeds and force constants.");
   cmd->add_option("name", o->name, "Show only the material this name means (as in a job file)");
   cmd->add_option("--units", o->units, "inch (ft/min) or mm (m/min)")
-      ->check(CLI::IsMember({"inch", "mm"}));
+      ->check(CLI::IsMember(keys_of<Units>()));
   cmd->add_flag("--json", o->json, "Print JSON instead of text");
   cmd->callback([o] { run_materials(*o); });
 }

@@ -7,6 +7,7 @@
 #include <fmt/format.h>
 #include <nlohmann/json.hpp>
 
+#include <dovetailor/base/length.hpp>
 #include <dovetailor/geometry/dovetail_section.hpp>
 #include <dovetailor/geometry/pin_gauge.hpp>
 #include <dovetailor/input/job_reader.hpp>
@@ -14,7 +15,6 @@
 #include "commands.hpp"
 #include "file_io.hpp"
 #include "flags.hpp"
-#include "show.hpp"
 
 namespace dovetailor::cli {
 namespace {
@@ -53,28 +53,12 @@ struct PinsCase {
 };
 
 std::string method_text(const PinReading& r) {
-  switch (r.method) {
-    case ReadingMethod::OverPins:
-      return "Reading over 2 pins";
-    case ReadingMethod::BetweenPins:
-      return "Reading between 2 pins";
-    case ReadingMethod::SquareSideToPin:
-      return "Square side to 1 pin";
-  }
-  return "Reading";
+  const std::string_view words = text_of(r.method);
+  return r.method == ReadingMethod::SquareSideToPin ? "Square side to 1 pin"
+                                                    : fmt::format("Reading {}", words);
 }
 
-std::string method_key(const PinReading& r) {
-  switch (r.method) {
-    case ReadingMethod::OverPins:
-      return "over-pins";
-    case ReadingMethod::BetweenPins:
-      return "between-pins";
-    case ReadingMethod::SquareSideToPin:
-      return "square-side-to-pin";
-  }
-  return "";
-}
+std::string method_key(const PinReading& r) { return std::string(key_of(r.method)); }
 
 PinsCase case_from_job(const PinsOptions& o) {
   PinsCase c;
@@ -104,12 +88,12 @@ PinsCase case_from_job(const PinsOptions& o) {
 
 PinsCase case_from_flags(const PinsOptions& o) {
   PinsCase c;
-  c.units = parse_units(o.units);
+  c.units = parse_word<Units>(o.units, "--units");
   DovetailSpec spec;
-  spec.type = parse_type(o.type, "--type");
+  spec.type = parse_word<DovetailType>(o.type, "--type");
   spec.angle = require_flag(o.angle, "--angle", 30, 75);
   spec.depth = to_mm(require_flag(o.depth, "--depth", 0, 1e4), c.units);
-  spec.sides = parse_sides(o.sides);
+  spec.sides = parse_word<AngledSides>(o.sides, "--sides");
   spec.chamfer = to_mm(o.chamfer, c.units);
   c.pin = to_mm(require_flag(o.pin, "--pin", 0, 1e4), c.units);
   c.source = "flags";
@@ -121,7 +105,7 @@ PinsCase case_from_flags(const PinsOptions& o) {
                      "--width/--reading");
   if (!std::isnan(o.width)) {
     spec.width = to_mm(require_flag(o.width, "--width", 0, 1e4), c.units);
-    spec.width_at = o.width_at == "top" ? WidthAt::Top : WidthAt::Bottom;
+    spec.width_at = parse_word<WidthAt>(o.width_at, "--width-at");
   } else {
     spec.width = width_for_reading(spec.type, angled, to_mm(o.reading, c.units), c.pin, spec.angle);
     spec.width_at = WidthAt::Bottom;
@@ -145,29 +129,31 @@ void print_text(const PinsCase& c) {
   const Units u = c.units;
   const PinReading r = reading_of(s, c.pin);
   const bool female = s.type == DovetailType::Female;
-  fmt::print("{} ({} dovetail, {:g} deg, {} angled)\n", c.title, type_name(s.type), s.angle,
+  fmt::print("{} ({} dovetail, {:g} deg, {} angled)\n", c.title, key_of(s.type), s.angle,
              s.angled_flanks() == 2 ? "both flanks" : "one flank");
   fmt::print("All lengths in {}.\n\n", unit_name(u));
   const auto row = [](std::string_view label, const std::string& value) {
     fmt::print("  {:<34}{}\n", label, value);
   };
   row(female ? "Width at base plane (floor)" : "Width at base plane (root)",
-      length(s.width_bottom(), u));
+      fmt::format("{}", shown(s.width_bottom(), u)));
   row(female ? "Width at top plane (mouth)" : "Width at top plane (top face)",
-      length(s.width_top(), u));
-  row("Depth", length(s.depth, u));
+      fmt::format("{}", shown(s.width_top(), u)));
+  row("Depth", fmt::format("{}", shown(s.depth, u)));
   if (s.gib_side)
     row(fmt::format("Gib allowance ({} flank)", *s.gib_side == Side::Left ? "left" : "right"),
-        length(s.gib_allowance, u) + " (included above)");
+        fmt::format("{}", shown(s.gib_allowance, u)) + " (included above)");
   fmt::print("\n");
-  row(method_text(r), fmt::format("{}   with {} pin{}", length(r.value + c.aim, u),
-                                  length(c.pin, u), r.pins == 1 ? "" : "s"));
-  row("  good from", fmt::format("{} to {}", number(r.value + c.tolerance.lower, u),
-                                 length(r.value + c.tolerance.upper, u)));
-  if (c.aim != 0) row("  nominal (the widths above)", length(r.value, u) + "; aim at the middle");
+  row(method_text(r), fmt::format("{}   with {} pin{}", shown(r.value + c.aim, u), shown(c.pin, u),
+                                  r.pins == 1 ? "" : "s"));
+  row("  good from", fmt::format("{:n} to {}", shown(r.value + c.tolerance.lower, u),
+                                 shown(r.value + c.tolerance.upper, u)));
+  if (c.aim != 0)
+    row("  nominal (the widths above)",
+        fmt::format("{}", shown(r.value, u)) + "; aim at the middle");
   const double h = contact_height(c.pin, s.angle);
   row("Pin touches the flank at", fmt::format("{} above the base ({:.0f} % of the flank)",
-                                              length(h, u), 100 * h / (s.depth - s.chamfer)));
+                                              shown(h, u), 100 * h / (s.depth - s.chamfer)));
   row("Pin constant 1 + cot(a/2)", fmt::format("{:.7f}", pin_constant(s.angle)));
   if (c.job && !female) {
     for (Side side : {Side::Left, Side::Right}) {
@@ -175,15 +161,15 @@ void print_text(const PinsCase& c) {
       const bool left = side == Side::Left;
       const double face = left ? stock_right_x(*c.job) : stock_left_x(*c.job);
       row(fmt::format("{} stock face to {} pin", left ? "Right" : "Left", left ? "left" : "right"),
-          length(reference_reading(s, side, c.pin, face), u));
+          fmt::format("{}", shown(reference_reading(s, side, c.pin, face), u)));
     }
   }
   const auto advice = advise_pins(s, c.corner_radius, u, c.stock);
   fmt::print("\nCommon pin sizes that fit (* = contact in the middle third of the flank):\n");
   if (advice.empty()) fmt::print("  none: the flank is too short for the common sizes\n");
   for (const auto& a : advice)
-    fmt::print("  {} {:>10}   touches at {}\n", a.middle_third ? '*' : ' ', length(a.diameter, u),
-               length(a.contact_height, u));
+    fmt::print("  {} {:>10}   touches at {}\n", a.middle_third ? '*' : ' ', shown(a.diameter, u),
+               shown(a.contact_height, u));
 }
 
 void print_json(const PinsCase& c) {
@@ -192,26 +178,26 @@ void print_json(const PinsCase& c) {
   const PinReading r = reading_of(s, c.pin);
   nlohmann::json j;
   j["units"] = unit_name(u);
-  j["type"] = type_name(s.type);
+  j["type"] = key_of(s.type);
   j["angle"] = s.angle;
   j["method"] = method_key(r);
   j["pins"] = r.pins;
-  j["pin_diameter"] = json_length(c.pin, u);
-  j["reading"] = json_length(r.value + c.aim, u);
-  j["reading_nominal"] = json_length(r.value, u);
-  j["reading_min"] = json_length(r.value + c.tolerance.lower, u);
-  j["reading_max"] = json_length(r.value + c.tolerance.upper, u);
-  j["width_bottom"] = json_length(s.width_bottom(), u);
-  j["width_top"] = json_length(s.width_top(), u);
-  j["depth"] = json_length(s.depth, u);
-  j["gib_allowance"] = json_length(s.gib_allowance, u);
-  j["contact_height"] = json_length(contact_height(c.pin, s.angle), u);
+  j["pin_diameter"] = length_value(c.pin, u);
+  j["reading"] = length_value(r.value + c.aim, u);
+  j["reading_nominal"] = length_value(r.value, u);
+  j["reading_min"] = length_value(r.value + c.tolerance.lower, u);
+  j["reading_max"] = length_value(r.value + c.tolerance.upper, u);
+  j["width_bottom"] = length_value(s.width_bottom(), u);
+  j["width_top"] = length_value(s.width_top(), u);
+  j["depth"] = length_value(s.depth, u);
+  j["gib_allowance"] = length_value(s.gib_allowance, u);
+  j["contact_height"] = length_value(contact_height(c.pin, s.angle), u);
   j["pin_constant"] = pin_constant(s.angle);
   j["problems"] = pin_problems(s, c.pin, c.corner_radius, u, c.stock);
   auto& advice = j["pin_advice"] = nlohmann::json::array();
   for (const auto& a : advise_pins(s, c.corner_radius, u, c.stock))
-    advice.push_back({{"diameter", json_length(a.diameter, u)},
-                      {"contact_height", json_length(a.contact_height, u)},
+    advice.push_back({{"diameter", length_value(a.diameter, u)},
+                      {"contact_height", length_value(a.contact_height, u)},
                       {"middle_third", a.middle_third}});
   fmt::print("{}\n", j.dump(2));
 }
@@ -242,18 +228,19 @@ void setup_pins(CLI::App& app) {
   auto* cmd = app.add_subcommand(
       "pins", "Widths and the pin reading of a dovetail, from a job file or from flags.");
   cmd->add_option("job", o->job_file, "Job file (TOML); omit to describe the dovetail by flags");
-  cmd->add_option("--type", o->type, "male or female")->check(CLI::IsMember({"male", "female"}));
+  cmd->add_option("--type", o->type, "male or female")
+      ->check(CLI::IsMember(keys_of<DovetailType>()));
   cmd->add_option("--units", o->units, "inch or mm (flags mode)")
-      ->check(CLI::IsMember({"inch", "mm"}));
+      ->check(CLI::IsMember(keys_of<Units>()));
   cmd->add_option("--angle", o->angle, "Flank angle, degrees (30 to 75)");
   cmd->add_option("--depth", o->depth, "Depth, base plane to top plane");
   cmd->add_option("--width", o->width, "Width at --width-at");
   cmd->add_option("--width-at", o->width_at, "bottom (base plane) or top")
-      ->check(CLI::IsMember({"bottom", "top"}));
+      ->check(CLI::IsMember(keys_of<WidthAt>()));
   cmd->add_option("--reading", o->reading, "A pin reading, instead of --width");
   cmd->add_option("--pin", o->pin, "Pin diameter (overrides the job's gauge)");
   cmd->add_option("--sides", o->sides, "Angled flanks: both, left or right")
-      ->check(CLI::IsMember({"both", "left", "right"}));
+      ->check(CLI::IsMember(keys_of<AngledSides>()));
   cmd->add_option("--chamfer", o->chamfer, "Top edge break (flags mode)");
   cmd->add_option("--corner-radius", o->corner_radius, "Cutter corner radius (flags mode)");
   cmd->add_flag("--json", o->json, "Print JSON instead of text");

@@ -5,6 +5,7 @@
 #include <fmt/format.h>
 
 #include <dovetailor/base/error.hpp>
+#include <dovetailor/gcode/gcode_words.hpp>
 #include <dovetailor/input/job_reader.hpp>
 #include <dovetailor/plan/planner.hpp>
 #include <dovetailor/plan/trim.hpp>
@@ -12,6 +13,7 @@
 
 #include "commands.hpp"
 #include "file_io.hpp"
+#include "flags.hpp"
 #include "post_lookup.hpp"
 #include "program_output.hpp"
 
@@ -53,7 +55,7 @@ void run_trim(const TrimOptions& o) {
   const std::string program =
       write_program(t.passes, post,
                     {.date = today(),
-                     .coolant = parse_coolant(o.coolant),
+                     .coolant = parse_word<CoolantChoice>(o.coolant, "--coolant"),
                      .title = fmt::format("dovetailor trim after checkpoint {} of {}", t.letter,
                                           job.part.name.empty() ? o.job_file : job.part.name)});
   if (o.output.empty()) {

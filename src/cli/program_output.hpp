@@ -12,9 +12,6 @@ namespace dovetailor::cli {
 // Today's local date as YYYY-MM-DD, for program headers.
 std::string today();
 
-// "flood", "mist" or "off"; an InputError naming --coolant otherwise.
-CoolantChoice parse_coolant(const std::string& word);
-
 // The plan's warnings on stderr, one "dovetailor: warning: ..." paragraph
 // each within 80 columns, so they reach the screen when the output goes to
 // a file or a pipe.

@@ -4,7 +4,7 @@
 
 #include <fmt/format.h>
 
-#include <dovetailor/base/length_text.hpp>
+#include <dovetailor/base/length.hpp>
 #include <dovetailor/drawing/check_drawing.hpp>
 #include <dovetailor/geometry/dovetail_section.hpp>
 #include <dovetailor/report/check_report.hpp>
@@ -64,7 +64,7 @@ void add_regions(Drawing& d, const StationResult& s) {
 // The virtual pins where they came to rest, the reading across them and the
 // label that says it.
 void add_pins(Drawing& d, const StationResult& s, Units u) {
-  const auto show = [u](double mm) { return length_text(mm, u); };
+  const auto show = [u](double mm) { return fmt::format("{}", shown(mm, u)); };
   const SectionMeasurement& m = s.measured;
   const double pin = s.target_reading.pin_diameter;
   for (const FlankMeasurement* f : {&m.left, &m.right})
@@ -102,7 +102,7 @@ Drawing build_check_drawing(const CheckReport& report, const Job& job, std::size
   d.title = fmt::format("{}: {} as simulated", job.part.name.empty() ? job.source : job.part.name,
                         report.program);
   d.subtitle = fmt::format("Section at y = {} (station {} of {}), looking from the front end; {}",
-                           length_text(s.y, u), station + 1, report.stations.size(),
+                           shown(s.y, u), station + 1, report.stations.size(),
                            u == Units::Inch ? "dimensions in inches" : "dimensions in mm");
   add_stock(d, job);
   const double right = d.stock_max.x, height = -d.stock_min.z;
@@ -117,7 +117,7 @@ Drawing build_check_drawing(const CheckReport& report, const Job& job, std::size
                             0,
                             0,
                             m.depth,
-                            length_text(m.depth, u)});
+                            fmt::format("{}", shown(m.depth, u))});
   return d;
 }
 

@@ -3,7 +3,7 @@
 
 #include <fmt/format.h>
 
-#include <dovetailor/base/length_text.hpp>
+#include <dovetailor/base/length.hpp>
 #include <dovetailor/drawing/drawing.hpp>
 #include <dovetailor/geometry/pin_gauge.hpp>
 #include <dovetailor/geometry/section_region.hpp>
@@ -22,17 +22,7 @@ double floor_direction(const DovetailSection& s, Side side) {
 
 }  // namespace
 
-std::string_view reading_words(ReadingMethod method) {
-  switch (method) {
-    case ReadingMethod::OverPins:
-      return "over the pins";
-    case ReadingMethod::BetweenPins:
-      return "between the pins";
-    case ReadingMethod::SquareSideToPin:
-      return "square side to pin";
-  }
-  return "";
-}
+std::string_view reading_words(ReadingMethod method) { return text_of(method); }
 
 double ring_area(const std::vector<Point2>& ring) {
   double twice = 0;
@@ -131,7 +121,7 @@ void add_pins(Drawing& d, const Plan& plan, const Gauge& gauge) {
     if (t.flank(side).angled) placed.push_back(place_pin(t, side, pin));
   for (const auto& p : placed) d.pins.push_back({p.center, pin});
   d.pin_label = fmt::format("Pin{} {} dia, reading {} {}", placed.size() > 1 ? "s" : "",
-                            length_text(pin, u), length_text(r.value, u), reading_words(r.method));
+                            shown(pin, u), shown(r.value, u), reading_words(r.method));
   double from = 0, to = 0;
   if (placed.size() == 2) {
     from = placed[0].measuring_edge_x;
@@ -143,8 +133,14 @@ void add_pins(Drawing& d, const Plan& plan, const Gauge& gauge) {
   }
   if (from > to) std::swap(from, to);
   const double z = placed.empty() ? 0 : placed[0].center.z;
-  d.dimensions.push_back(
-      {DimensionKind::Horizontal, {from, z}, {to, z}, 0, 0, 0, r.value, length_text(r.value, u)});
+  d.dimensions.push_back({DimensionKind::Horizontal,
+                          {from, z},
+                          {to, z},
+                          0,
+                          0,
+                          0,
+                          r.value,
+                          fmt::format("{}", shown(r.value, u))});
 }
 
 // The widths at the base and top planes, the depth and the flank angle.
@@ -156,10 +152,10 @@ void add_section_dimensions(Drawing& d, const Plan& plan, double tool_top) {
   const double base_z = -t.depth;
   d.dimensions.push_back({DimensionKind::Horizontal, t.left.base, t.right.base,
                           -(height - t.depth) - 0.12 * height, 0, 0, t.width_bottom(),
-                          length_text(t.width_bottom(), u)});
+                          fmt::format("{}", shown(t.width_bottom(), u))});
   d.dimensions.push_back({DimensionKind::Horizontal, t.left.top, t.right.top,
                           tool_top + 0.1 * height, 0, 0, t.width_top(),
-                          length_text(t.width_top(), u)});
+                          fmt::format("{}", shown(t.width_top(), u))});
   d.dimensions.push_back({DimensionKind::Vertical,
                           {right, 0},
                           {right, base_z},
@@ -167,7 +163,7 @@ void add_section_dimensions(Drawing& d, const Plan& plan, double tool_top) {
                           0,
                           0,
                           t.depth,
-                          length_text(t.depth, u)});
+                          fmt::format("{}", shown(t.depth, u))});
   const Side angled = t.left.angled ? Side::Left : Side::Right;
   const Flank& f = t.flank(angled);
   const double floor_deg = floor_direction(t, angled);

@@ -207,17 +207,8 @@ struct Box {
   }
 };
 
-}  // namespace
-
-Scene layout_drawing(const Drawing& drawing, double width, double height) {
-  Scene scene;
-  scene.width = width;
-  scene.height = height;
-  Layout lay(scene);
-  const double margin = 6;
-  lay.text({margin, 10}, drawing.title, 5.0, TextAnchor::Start, false, true, width - 2 * margin);
-
-  // The section's extent, dimension lines included.
+// The section's extent, dimension lines included.
+Box section_box(const Drawing& drawing) {
   Box box;
   for (const auto& r : drawing.regions)
     for (const auto& ring : r.polygons)
@@ -228,28 +219,45 @@ Scene layout_drawing(const Drawing& drawing, double width, double height) {
     if (d.kind == DimensionKind::Horizontal) box.add({d.a.x, d.a.z + d.offset});
     if (d.kind == DimensionKind::Vertical) box.add({d.a.x + d.offset, d.a.z});
   }
+  return box;
+}
 
-  const bool side_legend = width >= 1.25 * height;
-  const double legend_width = side_legend ? std::max(0.3 * width, 62.0) : width - 2 * margin;
+// Where things go on the page: the legend beside the section (a wide page)
+// or below it, and the section at a standard scale centred in the rest.
+struct Page {
+  static constexpr double margin = 6;
+  static constexpr double top = 24;
+  bool side_legend = false;
+  double legend_width = 0, legend_height = 0;
+  Mapper map{};
+};
+
+Page page_layout(const Drawing& drawing, double width, double height) {
+  const double margin = Page::margin, top = Page::top;
+  const Box box = section_box(drawing);
+  Page page;
+  page.side_legend = width >= 1.25 * height;
+  page.legend_width = page.side_legend ? std::max(0.3 * width, 62.0) : width - 2 * margin;
   const auto labelled = std::count_if(drawing.outlines.begin(), drawing.outlines.end(),
                                       [](const Outline& o) { return !o.label.empty(); });
   const std::size_t entries =
       drawing.regions.size() + static_cast<std::size_t>(labelled) + (drawing.pins.empty() ? 0 : 1);
-  const double legend_height = side_legend ? 0 : 10 + 8.5 * static_cast<double>(entries);
-  const double top = 24;
-  const double area_w = (side_legend ? width - legend_width - margin : width) - 2 * margin;
-  const double area_h = height - top - margin - legend_height;
+  page.legend_height = page.side_legend ? 0 : 10 + 8.5 * static_cast<double>(entries);
+  const double area_w =
+      (page.side_legend ? width - page.legend_width - margin : width) - 2 * margin;
+  const double area_h = height - top - margin - page.legend_height;
   // Room for dimension texts beyond the extent: 14 mm right, 8 mm elsewhere.
   const double fit =
       std::min((area_w - 8 - 22) / (box.x1 - box.x0), (area_h - 16) / (box.z1 - box.z0));
   const double s = nice_scale(fit);
-  scene.scale = s;
   const double used_w = (box.x1 - box.x0) * s, used_h = (box.z1 - box.z0) * s;
-  const Mapper map{s, box.x0, box.z1, margin + 8 + (area_w - 30 - used_w) / 2,
-                   top + 8 + (area_h - 16 - used_h) / 2};
-  lay.text({margin, 16}, drawing.subtitle + "; " + scale_words(s) + " on this page", 3.2,
-           TextAnchor::Start, false, false, width - 2 * margin);
+  page.map = {s, box.x0, box.z1, margin + 8 + (area_w - 30 - used_w) / 2,
+              top + 8 + (area_h - 16 - used_h) / 2};
+  return page;
+}
 
+// The regions, outlines with their tags, pins and dimensions, to scale.
+void draw_section(Scene& scene, Layout& lay, const Drawing& drawing, const Mapper& map) {
   for (const auto& r : drawing.regions) {
     ScenePath path{{}, true, region_style(r)};
     for (const auto& ring : r.polygons) path.rings.push_back(map.ring(ring));
@@ -268,7 +276,7 @@ Scene layout_drawing(const Drawing& drawing, double width, double height) {
   }
   for (const auto& pin : drawing.pins) {
     const Point2 c = map(pin.center);
-    const double r = pin.diameter / 2 * s;
+    const double r = pin.diameter / 2 * map.scale;
     scene.paths.push_back({{circle(c, r)}, true, pin_style});
     lay.line({c.x - r * 0.4, c.z}, {c.x + r * 0.4, c.z});
     lay.line({c.x, c.z - r * 0.4}, {c.x, c.z + r * 0.4});
@@ -279,12 +287,15 @@ Scene layout_drawing(const Drawing& drawing, double width, double height) {
     else
       lay.linear(d, map);
   }
+}
 
-  // The legend: a swatch and the words for each element.
-  double lx = side_legend ? width - legend_width : margin;
-  double ly = side_legend ? top + 4 : height - legend_height + 2;
+// The legend: a swatch and the words for each element.
+void draw_legend(Scene& scene, Layout& lay, const Drawing& drawing, const Page& page) {
+  const double margin = Page::margin;
+  double lx = page.side_legend ? scene.width - page.legend_width : margin;
+  double ly = page.side_legend ? Page::top + 4 : scene.height - page.legend_height + 2;
   const double text_size = 3.0;
-  const double text_room = legend_width - margin - 14;
+  const double text_room = page.legend_width - margin - 14;
   lay.text({lx, ly}, "Legend", 3.6, TextAnchor::Start, false, true);
   ly += 4;
   const auto entry = [&](const std::string& words, auto&& swatch) {
@@ -315,6 +326,23 @@ Scene layout_drawing(const Drawing& drawing, double width, double height) {
     entry(drawing.pin_label, [&](Point2 p) {
       scene.paths.push_back({{circle({p.x + 5.5, p.z + 3.5}, 2.5)}, true, pin_style});
     });
+}
+
+}  // namespace
+
+Scene layout_drawing(const Drawing& drawing, double width, double height) {
+  Scene scene;
+  scene.width = width;
+  scene.height = height;
+  Layout lay(scene);
+  const double margin = Page::margin;
+  lay.text({margin, 10}, drawing.title, 5.0, TextAnchor::Start, false, true, width - 2 * margin);
+  const Page page = page_layout(drawing, width, height);
+  scene.scale = page.map.scale;
+  lay.text({margin, 16}, drawing.subtitle + "; " + scale_words(page.map.scale) + " on this page",
+           3.2, TextAnchor::Start, false, false, width - 2 * margin);
+  draw_section(scene, lay, drawing, page.map);
+  draw_legend(scene, lay, drawing, page);
   return scene;
 }
 

@@ -1,6 +1,8 @@
 #include <algorithm>
 #include <cmath>
 #include <map>
+#include <string>
+#include <utility>
 
 #include <fmt/format.h>
 
@@ -63,75 +65,78 @@ std::string stroke_attributes(const PaintStyle& s) {
   return a;
 }
 
+// The lines of one hatch tile `g` wide and the tile's rotation, degrees.
+std::pair<std::string, double> hatch_tile(Hatch hatch, double g, const std::string& ink) {
+  const std::string line = fmt::format("<line x1=\"0\" y1=\"0\" x2=\"{:g}\" y2=\"0\" {}/>", g, ink);
+  switch (hatch) {
+    case Hatch::Diagonal:
+      return {line, -45};
+    case Hatch::BackDiagonal:
+      return {line, 45};
+    case Hatch::Cross:
+      return {line + fmt::format("<line x1=\"0\" y1=\"0\" x2=\"0\" y2=\"{:g}\" {}/>", g, ink), 45};
+    case Hatch::Horizontal:
+      return {line, 0};
+    case Hatch::None:
+      break;
+  }
+  return {"", 0};
+}
+
+// One <pattern> per hatch look in use, written to `defs` the first time
+// the look is asked for.
+class HatchPatterns {
+ public:
+  const std::string& id(const PaintStyle& s) {
+    const std::string key = fmt::format("{}-{}-{:g}", static_cast<int>(s.hatch),
+                                        colour(s.hatch_colour), s.hatch_spacing);
+    auto it = ids_.find(key);
+    if (it != ids_.end()) return it->second;
+    const double g = s.hatch_spacing;
+    const auto [tile, angle] = hatch_tile(
+        s.hatch, g, fmt::format("stroke=\"{}\" stroke-width=\"0.18\"", colour(s.hatch_colour)));
+    const std::string id = fmt::format("hatch{}", ids_.size() + 1);
+    defs_ += fmt::format(
+        "<pattern id=\"{}\" patternUnits=\"userSpaceOnUse\" width=\"{:g}\" height=\"{:g}\" "
+        "patternTransform=\"rotate({:g})\">{}</pattern>\n",
+        id, g, g, angle, tile);
+    return ids_[key] = id;
+  }
+  const std::string& defs() const { return defs_; }
+
+ private:
+  std::map<std::string, std::string> ids_;  // look -> id
+  std::string defs_;
+};
+
+std::string text_element(const SceneText& t) {
+  const char* anchor = t.anchor == TextAnchor::Start    ? "start"
+                       : t.anchor == TextAnchor::Middle ? "middle"
+                                                        : "end";
+  return fmt::format(
+      "<text x=\"{:.3f}\" y=\"{:.3f}\" font-family=\"DejaVu Sans, Helvetica, Arial, sans-serif\" "
+      "font-size=\"{:.2f}\" text-anchor=\"{}\"{}{}>{}</text>\n",
+      t.at.x, t.at.z, t.size, anchor, t.bold ? " font-weight=\"bold\"" : "",
+      t.halo ? " stroke=\"#ffffff\" stroke-width=\"0.9\" paint-order=\"stroke\"" : "",
+      escape(t.text));
+}
+
 }  // namespace
 
 std::string drawing_svg(const Scene& scene) {
-  // One pattern per hatch look in use.
-  std::map<std::string, std::string> patterns;  // look -> id
-  std::string defs;
-  const auto pattern_id = [&](const PaintStyle& s) {
-    const std::string key = fmt::format("{}-{}-{:g}", static_cast<int>(s.hatch),
-                                        colour(s.hatch_colour), s.hatch_spacing);
-    auto it = patterns.find(key);
-    if (it != patterns.end()) return it->second;
-    const double g = s.hatch_spacing;
-    const std::string ink =
-        fmt::format("stroke=\"{}\" stroke-width=\"0.18\"", colour(s.hatch_colour));
-    std::string body;
-    double angle = 0;
-    switch (s.hatch) {
-      case Hatch::Diagonal:
-        angle = -45;
-        body = fmt::format("<line x1=\"0\" y1=\"0\" x2=\"{0:g}\" y2=\"0\" {1}/>", g, ink);
-        break;
-      case Hatch::BackDiagonal:
-        angle = 45;
-        body = fmt::format("<line x1=\"0\" y1=\"0\" x2=\"{0:g}\" y2=\"0\" {1}/>", g, ink);
-        break;
-      case Hatch::Cross:
-        angle = 45;
-        body = fmt::format(
-            "<line x1=\"0\" y1=\"0\" x2=\"{0:g}\" y2=\"0\" {1}/><line x1=\"0\" y1=\"0\" x2=\"0\" "
-            "y2=\"{0:g}\" {1}/>",
-            g, ink);
-        break;
-      case Hatch::Horizontal:
-        body = fmt::format("<line x1=\"0\" y1=\"0\" x2=\"{0:g}\" y2=\"0\" {1}/>", g, ink);
-        break;
-      case Hatch::None:
-        break;
-    }
-    std::string id = fmt::format("hatch{}", patterns.size() + 1);
-    patterns[key] = id;
-    defs += fmt::format(
-        "<pattern id=\"{}\" patternUnits=\"userSpaceOnUse\" width=\"{:g}\" height=\"{:g}\" "
-        "patternTransform=\"rotate({:g})\">{}</pattern>\n",
-        id, g, g, angle, body);
-    return id;
-  };
+  HatchPatterns patterns;
   std::string body;
   for (const auto& p : scene.paths) {
     const std::string d = path_data(p);
     const auto& s = p.style;
     body += fmt::format("<path d=\"{}\" fill=\"{}\" fill-rule=\"evenodd\"{}/>\n", d,
                         s.fill ? colour(s.fill_colour) : "none", stroke_attributes(s));
-    if (s.hatch != Hatch::None) {
+    if (s.hatch != Hatch::None)
       body +=
           fmt::format("<path d=\"{}\" fill=\"url(#{})\" fill-rule=\"evenodd\" stroke=\"none\"/>\n",
-                      d, pattern_id(s));
-    }
+                      d, patterns.id(s));
   }
-  for (const auto& t : scene.texts) {
-    const char* anchor = t.anchor == TextAnchor::Start    ? "start"
-                         : t.anchor == TextAnchor::Middle ? "middle"
-                                                          : "end";
-    body += fmt::format(
-        "<text x=\"{:.3f}\" y=\"{:.3f}\" font-family=\"DejaVu Sans, Helvetica, Arial, sans-serif\" "
-        "font-size=\"{:.2f}\" text-anchor=\"{}\"{}{}>{}</text>\n",
-        t.at.x, t.at.z, t.size, anchor, t.bold ? " font-weight=\"bold\"" : "",
-        t.halo ? " stroke=\"#ffffff\" stroke-width=\"0.9\" paint-order=\"stroke\"" : "",
-        escape(t.text));
-  }
+  for (const auto& t : scene.texts) body += text_element(t);
   return fmt::format(
       "<?xml version=\"1.0\" encoding=\"UTF-8\"?>\n"
       "<svg xmlns=\"http://www.w3.org/2000/svg\" version=\"1.1\" width=\"{0:g}mm\" "
@@ -139,7 +144,7 @@ std::string drawing_svg(const Scene& scene) {
       "<defs>\n{2}</defs>\n"
       "<rect x=\"0\" y=\"0\" width=\"{0:g}\" height=\"{1:g}\" fill=\"#ffffff\"/>\n"
       "{3}</svg>\n",
-      scene.width, scene.height, defs, body);
+      scene.width, scene.height, patterns.defs(), body);
 }
 
 }  // namespace dovetailor

@@ -211,26 +211,10 @@ std::vector<std::string> split_words(const std::string& text, std::size_t width)
   return pieces;
 }
 
-}  // namespace
-
-std::string format_number(double value, int decimals) {
-  require(std::isfinite(value), "number is not finite");
-  std::string text = fmt::format("{:.{}f}", value, decimals);
-  if (text.find('.') == std::string::npos) text += '.';
-  while (text.back() == '0') text.pop_back();
-  if (text == "-0.") text = "0.";
-  return text;
-}
-
-std::string format_length(double mm, const Post& post, Units units) {
-  return format_number(from_mm(mm, units),
-                       units == Units::Inch ? post.decimals.inch : post.decimals.mm);
-}
-
-std::string format_block(const Block& block, const Post& post, Units units, long line_number) {
-  require(!block.words.empty() || !block.settings.empty() || !block.comment.empty(), "empty block");
-  check_allowed(block, post, units);
-
+// The block's words in the post's order, then its parameter settings,
+// checked: each letter writable, once (G and M may repeat), parameters in
+// #1 to #5399.
+std::string block_body(const Block& block, const Post& post, Units units) {
   std::vector<Word> words = block.words;
   for (std::size_t i = 0; i < words.size(); ++i) {
     const char letter = words[i].letter;
@@ -256,24 +240,58 @@ std::string format_block(const Block& block, const Post& post, Units units, long
     body += fmt::format("#{}={}", s.number,
                         s.expression.empty() ? format_length(s.length, post, units) : s.expression);
   }
+  return body;
+}
 
-  const auto max = static_cast<std::size_t>(post.max_line_length);
-  const auto& numbering = post.line_numbers;
-  long number = line_number;
-  const auto next_prefix = [&]() -> std::string {
+// The "N.. " prefix of each line a block takes, from its first number by the
+// post's step; none when the post numbers no lines.
+class BlockNumbers {
+ public:
+  BlockNumbers(const Post& post, long first) : post_(post), number_(first) {}
+
+  std::string next() {
+    const auto& numbering = post_.line_numbers;
     if (!numbering.enabled) return {};
-    if (number > largest_line_number)
-      refuse(post, "line_numbers.step",
+    if (number_ > largest_line_number)
+      refuse(post_, "line_numbers.step",
              fmt::format("line number N{} is past N{}; give a smaller start or step, or turn "
                          "line numbers off",
-                         number, largest_line_number));
-    std::string prefix = fmt::format("N{} ", number);
-    number += numbering.step;
+                         number_, largest_line_number));
+    std::string prefix = fmt::format("N{} ", number_);
+    number_ += numbering.step;
     return prefix;
-  };
+  }
+
+ private:
+  const Post& post_;
+  long number_;
+};
+
+}  // namespace
+
+std::string format_number(double value, int decimals) {
+  require(std::isfinite(value), "number is not finite");
+  std::string text = fmt::format("{:.{}f}", value, decimals);
+  if (text.find('.') == std::string::npos) text += '.';
+  while (text.back() == '0') text.pop_back();
+  if (text == "-0.") text = "0.";
+  return text;
+}
+
+std::string format_length(double mm, const Post& post, Units units) {
+  return format_number(from_mm(mm, units),
+                       units == Units::Inch ? post.decimals.inch : post.decimals.mm);
+}
+
+std::string format_block(const Block& block, const Post& post, Units units, long line_number) {
+  require(!block.words.empty() || !block.settings.empty() || !block.comment.empty(), "empty block");
+  check_allowed(block, post, units);
+  const std::string body = block_body(block, post, units);
+  BlockNumbers numbers(post, line_number);
+  const auto max = static_cast<std::size_t>(post.max_line_length);
 
   const std::string comment = clean_comment(block.comment);
-  std::string prefix = next_prefix();
+  std::string prefix = numbers.next();
   std::string one_line = prefix + body;
   if (!comment.empty()) one_line += (body.empty() ? "" : " ") + comment_text(comment, post);
   if (one_line.size() <= max) return one_line;
@@ -282,11 +300,11 @@ std::string format_block(const Block& block, const Post& post, Units units, long
   std::vector<std::string> lines;
   const std::size_t frame = comment_text("", post).size();
   for (const auto& piece : split_words(comment, max - prefix.size() - frame)) {
-    if (!lines.empty()) prefix = next_prefix();
+    if (!lines.empty()) prefix = numbers.next();
     lines.push_back(prefix + comment_text(piece, post));
   }
   if (!body.empty()) {
-    std::string words_line = next_prefix() + body;
+    std::string words_line = numbers.next() + body;
     if (words_line.size() > max)
       refuse(post, "max_line_length",
              fmt::format("the block \"{}\" is {} characters long; the control reads at most {}",

@@ -6,6 +6,7 @@
 #include <fmt/format.h>
 
 #include <dovetailor/base/error.hpp>
+#include <dovetailor/base/length.hpp>
 #include <dovetailor/gcode/gcode_writer.hpp>
 #include <dovetailor/gcode/program_text.hpp>
 #include <dovetailor/report/plan_note_text.hpp>
@@ -131,7 +132,7 @@ class Writer {
     spindle_off("before the tool change", post_.tool_changer);
     const std::string what =
         fmt::format("{} {} dia", t.kind == ToolKind::EndMill ? "end mill" : "dovetail cutter",
-                    detail::ProgramShow{units_}.len(t.diameter));
+                    shown(t.diameter, units_));
     for (const auto& block : tool_change_blocks(post_, t.number, what)) text_.add(block);
     comment(operation_title(op));
     // The tool change may have moved X and Y: the next move writes them again.
@@ -185,12 +186,11 @@ class Writer {
   }
 
   void write_pass(const Operation& op, const Pass& pass) {
-    const detail::ProgramShow show{units_};
     const std::string_view role =
         pass.role == PassRole::Spring ? "spring pass" : pass_role_word(pass.role);
     comment(fmt::format("pass {}: {}{}, stock left {}", pass.number, role,
                         pass.side ? (*pass.side == Side::Left ? ", left" : ", right") : ", centre",
-                        show.len(pass.stock_left)));
+                        shown(pass.stock_left, units_)));
     spindle_on(pass.rpm, "spindle and coolant on before the cut");
     const bool sized = op.kind == OperationKind::Undercut && finishing(pass.role) && pass.side;
     if (sized && style_ == SizingStyle::CutterCompensation) {

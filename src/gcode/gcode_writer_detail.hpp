@@ -10,13 +10,6 @@
 
 namespace dovetailor::detail {
 
-// Lengths for comments, in the program's units: "0.3750 in".
-struct ProgramShow {
-  Units units;
-  std::string num(double mm) const;
-  std::string len(double mm) const;
-};
-
 using dovetailor::wrap_words;
 
 // The header comment lines (not yet wrapped).

@@ -3,7 +3,7 @@
 
 #include <fmt/format.h>
 
-#include <dovetailor/base/length_text.hpp>
+#include <dovetailor/base/length.hpp>
 #include <dovetailor/geometry/pin_gauge.hpp>
 
 namespace dovetailor {
@@ -111,7 +111,7 @@ std::vector<std::string> pin_problems(const DovetailSection& section, double pin
                                       double corner_radius, Units units,
                                       const std::optional<StockFaces>& stock) {
   std::vector<std::string> problems;
-  const auto show = [&](double mm) { return length_text(mm, units); };
+  const auto show = [&](double mm) { return fmt::format("{}", shown(mm, units)); };
   const double usable = section.depth - section.chamfer;
   const double h = contact_height(pin_diameter, section.angle);
   if (h >= usable) {

@@ -4,11 +4,12 @@
 
 #include <fmt/format.h>
 
-#include <dovetailor/base/length_text.hpp>
+#include <dovetailor/base/length.hpp>
 #include <dovetailor/geometry/dovetail_section.hpp>
 #include <dovetailor/geometry/fit.hpp>
 #include <dovetailor/geometry/pin_gauge.hpp>
 #include <dovetailor/input/job_reader.hpp>
+#include <dovetailor/job/job_words.hpp>
 
 #include "toml_fields.hpp"
 
@@ -32,7 +33,7 @@ class JobReader {
   Job read() {
     job_.source = file_;
     TableReader top(root_, "", file_);
-    auto units = top.choice<Units>("units", {{"inch", Units::Inch}, {"mm", Units::Millimetre}});
+    auto units = top.choice<Units>("units");
     if (!units) top.fail("units", "missing; write units = \"inch\" or units = \"mm\" at the top");
     job_.units = *units;
     read_part(top);
@@ -120,22 +121,18 @@ class JobReader {
   void read_dovetail(TableReader& top) {
     TableReader t(required_table(top, "dovetail"), "dovetail", file_);
     auto& d = job_.dovetail;
-    auto type = t.choice<DovetailType>(
-        "type", {{"male", DovetailType::Male}, {"female", DovetailType::Female}});
+    auto type = t.choice<DovetailType>("type");
     if (!type) t.fail("type", "missing; give type = \"male\" or \"female\"");
     d.type = *type;
     d.angle = t.required_number("angle", 30, 75);
     d.depth = positive_length(t, "depth");
-    d.sides = t.choice<AngledSides>("sides", {{"both", AngledSides::Both},
-                                              {"left", AngledSides::Left},
-                                              {"right", AngledSides::Right}})
-                  .value_or(AngledSides::Both);
+    d.sides = t.choice<AngledSides>("sides").value_or(AngledSides::Both);
     if (const auto* mate = t.table("mate")) read_mate(*mate);
     const bool given = t.has("width");
     if (given == d.mate.has_value())
       t.fail("width", d.mate ? "give either width or mate, not both: the mate sets the width"
                              : "missing; give the width (with width_at), or a mate to derive it");
-    auto at = t.choice<WidthAt>("width_at", {{"bottom", WidthAt::Bottom}, {"top", WidthAt::Top}});
+    auto at = t.choice<WidthAt>("width_at");
     if (given) {
       d.width = positive_length(t, "width");
       if (!at) t.fail("width_at", "missing; give width_at = \"bottom\" (base plane) or \"top\"");
@@ -159,10 +156,7 @@ class JobReader {
         t.fail("tolerance", "the lower limit must be below the upper, as [lower, upper]");
       d.tolerance = {to_mm((*band)[0], job_.units), to_mm((*band)[1], job_.units)};
     }
-    d.ends = t.choice<Ends>(
-                  "ends",
-                  {{"open", Ends::Open}, {"front-open", Ends::FrontOpen}, {"closed", Ends::Closed}})
-                 .value_or(Ends::Open);
+    d.ends = t.choice<Ends>("ends").value_or(Ends::Open);
     d.chamfer = length(t, "chamfer", 0, false, 0);
     if (d.chamfer >= d.depth) t.fail("chamfer", "must be smaller than the depth");
     if (const auto* gib = t.table("gib")) read_gib(*gib);
@@ -173,8 +167,7 @@ class JobReader {
   void read_mate(const toml::table& table) {
     TableReader t(table, "dovetail.mate", file_);
     Mate mate;
-    auto type = t.choice<DovetailType>(
-        "type", {{"male", DovetailType::Male}, {"female", DovetailType::Female}});
+    auto type = t.choice<DovetailType>("type");
     if (!type) t.fail("type", "missing; the measured mating part is \"male\" or \"female\"");
     if (*type == job_.dovetail.type)
       t.fail("type", "the mate must be of the other type than this part");
@@ -223,7 +216,7 @@ class JobReader {
   void read_gib(const toml::table& table) {
     TableReader t(table, "dovetail.gib", file_);
     Gib gib;
-    auto side = t.choice<Side>("side", {{"left", Side::Left}, {"right", Side::Right}});
+    auto side = t.choice<Side>("side");
     if (!side) t.fail("side", "missing; give side = \"left\" or \"right\"");
     gib.side = *side;
     gib.thickness = positive_length(t, "thickness");
@@ -252,10 +245,7 @@ class JobReader {
       tool.number = static_cast<int>(*number);
       if (!numbers.insert(tool.number).second)
         t.fail("number", fmt::format("tool number {} is used twice", tool.number));
-      auto kind = t.choice<ToolKind>("kind", {{"end-mill", ToolKind::EndMill},
-                                              {"dovetail", ToolKind::Dovetail},
-                                              {"drill", ToolKind::Drill},
-                                              {"chamfer-mill", ToolKind::ChamferMill}});
+      auto kind = t.choice<ToolKind>("kind");
       if (!kind)
         t.fail("kind",
                "missing; give kind = \"end-mill\", \"dovetail\", \"drill\" or \"chamfer-mill\"");
@@ -265,8 +255,7 @@ class JobReader {
       if (!flutes) t.fail("flutes", "missing; give the number of flutes, 1 to 32");
       tool.flutes = static_cast<int>(*flutes);
       tool.flute_length = positive_length(t, "flute_length");
-      auto material = t.choice<ToolMaterial>(
-          "material", {{"hss", ToolMaterial::Hss}, {"carbide", ToolMaterial::Carbide}});
+      auto material = t.choice<ToolMaterial>("material");
       if (!material) t.fail("material", "missing; give material = \"hss\" or \"carbide\"");
       tool.material = *material;
       const bool dovetail = tool.kind == ToolKind::Dovetail;
@@ -313,7 +302,7 @@ class JobReader {
           t.fail("flute_length",
                  fmt::format("is shorter than the cone ({} from the tip diameter to the "
                              "diameter at this angle)",
-                             length_text(cone, job_.units)));
+                             shown(cone, job_.units)));
       }
       tool.shank_diameter = optional_positive_length(t, "shank_diameter");
       tool.stickout = optional_positive_length(t, "stickout");
@@ -346,9 +335,7 @@ class JobReader {
     const auto* table = top.table("machine");
     if (!table) return;
     TableReader t(*table, "machine", file_);
-    job_.machine.kind =
-        t.choice<MachineKind>("kind", {{"cnc", MachineKind::Cnc}, {"manual", MachineKind::Manual}})
-            .value_or(MachineKind::Cnc);
+    job_.machine.kind = t.choice<MachineKind>("kind").value_or(MachineKind::Cnc);
     job_.machine.max_rpm = positive_number(t, "max_rpm", largest_rpm, "rev/min");
     job_.machine.max_feed = positive_feed(t, "max_feed");
     const auto* x_dial = t.table("x_dial");
@@ -387,14 +374,9 @@ class JobReader {
   Handwheel read_dial(const toml::table& table, const std::string& path,
                       std::optional<AxisDirection> default_approach) {
     TableReader t(table, path, file_);
-    const Units dial_units =
-        t.choice<Units>("units", {{"inch", Units::Inch}, {"mm", Units::Millimetre}})
-            .value_or(job_.units);
+    const Units dial_units = t.choice<Units>("units").value_or(job_.units);
     Handwheel wheel;
-    const auto preset = t.choice<CommonDial>("preset", {{"inch-200", CommonDial::Inch200},
-                                                        {"inch-100", CommonDial::Inch100},
-                                                        {"metric-5", CommonDial::Metric5mm},
-                                                        {"metric-2", CommonDial::Metric2mm}});
+    const auto preset = t.choice<CommonDial>("preset");
     if (preset) {
       for (std::string_view key : {"travel_per_turn", "divisions", "units"})
         if (t.has(key)) t.fail(key, "leave this out when a preset gives the dial");
@@ -416,10 +398,7 @@ class JobReader {
       wheel.travel_per_turn = to_mm(*travel, dial_units);
       wheel.divisions = static_cast<int>(*divisions);
     }
-    const auto direction = [&](std::string_view key) {
-      return t.choice<AxisDirection>(
-          key, {{"plus", AxisDirection::Plus}, {"minus", AxisDirection::Minus}});
-    };
+    const auto direction = [&](std::string_view key) { return t.choice<AxisDirection>(key); };
     wheel.reading_grows = direction("reading_grows").value_or(AxisDirection::Plus);
     wheel.approach = direction("approach").value_or(default_approach.value_or(wheel.reading_grows));
     const double backlash =
@@ -434,11 +413,8 @@ class JobReader {
   Datum read_datum(const toml::table& table, Side face) {
     TableReader t(table, "machine.datum", file_);
     Datum d;
-    d.x_method = t.choice<XDatumMethod>("x", {{"edge-finder", XDatumMethod::EdgeFinder},
-                                              {"touch-off", XDatumMethod::TouchOff}})
-                     .value_or(XDatumMethod::EdgeFinder);
-    d.x_face =
-        t.choice<Side>("face", {{"left", Side::Left}, {"right", Side::Right}}).value_or(face);
+    d.x_method = t.choice<XDatumMethod>("x").value_or(XDatumMethod::EdgeFinder);
+    d.x_face = t.choice<Side>("face").value_or(face);
     if (d.x_face != face)
       t.fail("face", fmt::format("the X settings are approached moving {}, so X zero must be "
                                  "found moving that way too: on the {} face",
@@ -472,7 +448,8 @@ class JobReader {
     if (auto v = t.number("rough_allowance", 0, small)) st.rough_allowance = to_mm(*v, job_.units);
     if (auto v = t.number("floor_allowance", 0, small)) st.floor_allowance = to_mm(*v, job_.units);
     st.direction = t.choice<MillingMode>(
-        "direction", {{"conventional", MillingMode::Conventional}, {"climb", MillingMode::Climb}});
+        "direction", {{key_of(MillingMode::Conventional), MillingMode::Conventional},
+                      {key_of(MillingMode::Climb), MillingMode::Climb}});
     if (t.has("checkpoints")) {
       const auto* array = table->get("checkpoints")->as_array();
       if (!array)
@@ -481,17 +458,11 @@ class JobReader {
       for (const auto& item : *array) {
         const auto* word = item.as_string();
         const std::string w = word ? word->get() : "";
-        if (w == "after-roughing")
-          at.push_back(CheckpointAt::AfterRoughing);
-        else if (w == "before-finish")
-          at.push_back(CheckpointAt::BeforeFinish);
-        else if (w == "after-finish")
-          at.push_back(CheckpointAt::AfterFinish);
+        if (const auto point = from_key<CheckpointAt>(w))
+          at.push_back(*point);
         else
-          throw InputError(
-              "each checkpoint is \"after-roughing\", \"before-finish\" or "
-              "\"after-finish\"",
-              detail::place_of(item, file_), "strategy.checkpoints");
+          throw InputError("each checkpoint is " + key_list<CheckpointAt>("or"),
+                           detail::place_of(item, file_), "strategy.checkpoints");
       }
       st.checkpoints = at;
     }
@@ -520,10 +491,7 @@ class JobReader {
       TableReader t(*table, fmt::format("fixture[{}]", index), file_);
       Fixture f;
       f.name = t.text("name").value_or(fmt::format("fixture {}", index));
-      f.kind = t.choice<FixtureKind>("kind", {{"vise-jaw", FixtureKind::ViseJaw},
-                                              {"clamp", FixtureKind::Clamp},
-                                              {"other", FixtureKind::Other}})
-                   .value_or(FixtureKind::Other);
+      f.kind = t.choice<FixtureKind>("kind").value_or(FixtureKind::Other);
       const double big = largest_length(job_.units);
       const auto span = [&](std::string_view key, double& low, double& high) {
         auto v = t.numbers(key, 2, -big, big);
@@ -571,11 +539,7 @@ class JobReader {
                     to_mm((*v)[2], job_.units)};
     };
     p.zero = point(t, "zero", big).value_or(Point3{});
-    p.slide = t.choice<SlideAxis>("slide", {{"+x", SlideAxis::PlusX},
-                                            {"-x", SlideAxis::MinusX},
-                                            {"+y", SlideAxis::PlusY},
-                                            {"-y", SlideAxis::MinusY}})
-                  .value_or(SlideAxis::PlusY);
+    p.slide = t.choice<SlideAxis>("slide").value_or(SlideAxis::PlusY);
     p.g28_home = point(t, "g28", 10 * big);
     p.g30_home = point(t, "g30", 10 * big);
     if (const auto* offsets = t.table("offsets")) {
@@ -593,12 +557,12 @@ class JobReader {
     const int angled = d.sides == AngledSides::Both ? 2 : 1;
     const double bottom = design_width_bottom(d);
     const double top = width_top_from_bottom(d.type, bottom, d.depth, d.angle, angled);
-    const auto show = [&](double mm) { return length_text(mm, job_.units); };
+    const auto show = [&](double mm) { return fmt::format("{}", shown(mm, job_.units)); };
     if (bottom <= 0 || top <= 0)
       throw InputError(
           fmt::format("a {} dovetail {} deep at {} deg with this width has a {} of {}: the "
                       "flanks cross; give a wider dovetail or a shallower depth",
-                      d.type == DovetailType::Female ? "female" : "male", show(d.depth), d.angle,
+                      key_of(d.type), show(d.depth), d.angle,
                       bottom <= 0 ? "base-plane width" : "mouth width",
                       show(bottom <= 0 ? bottom : top)),
           dovetail_place_, "dovetail.width");

@@ -3,6 +3,7 @@
 #include <fmt/format.h>
 
 #include <dovetailor/input/job_template.hpp>
+#include <dovetailor/job/job_words.hpp>
 
 namespace dovetailor {
 
@@ -103,23 +104,25 @@ class TemplateText {
   std::string text_;
 };
 
-}  // namespace
+// A key's value as the file writes it: "\"male\"", from the enum's word table.
+template <class E>
+std::string quoted(E value) {
+  return fmt::format("\"{}\"", key_of(value));
+}
 
-std::string job_template(DovetailType type, Units units) {
-  const bool female = type == DovetailType::Female;
-  const TemplateSizes s = sizes(type, units);
-  const bool inch = units == Units::Inch;
-  TemplateText t;
+void intro(TemplateText& t, bool female, Units units) {
   t.comment("dovetailor job file: one dovetail, its stock, tools, pins and machine.");
   t.comment(fmt::format("Written by `dovetailor new` as a start: the example is the {} of a",
                         female ? "female way" : "male carriage"));
   t.comment("fixture slide. Change every value to your job and your cutters, then");
   t.comment("check it with `dovetailor plan FILE`. A commented-out key shows its");
   t.comment(fmt::format("default or an example. Every length is in {}, angles in degrees.",
-                        inch ? "inches" : "millimetres"));
+                        units == Units::Inch ? "inches" : "millimetres"));
   t.blank();
-  t.key("units", inch ? "\"inch\"" : "\"mm\"", "\"inch\" or \"mm\", for every length here");
+  t.key("units", quoted(units), key_list<Units>("or") + ", for every length here");
+}
 
+void part_and_stock(TemplateText& t, bool female, const TemplateSizes& s) {
   t.table("[part]");
   t.key("name", female ? "\"Fixture slide base\"" : "\"Fixture slide carriage\"",
         "shown on every plan, program and sheet");
@@ -129,43 +132,53 @@ std::string job_template(DovetailType type, Units units) {
   t.table("[stock]");
   t.key("size", s.stock, "x width, y length, z height as supplied");
   t.comment("Work zero: the top face, on the dovetail centre line, at the front end.");
+}
 
+void dovetail(TemplateText& t, DovetailType type, const TemplateSizes& s) {
+  const bool female = type == DovetailType::Female;
   t.table("[dovetail]");
-  t.key("type", female ? "\"female\"" : "\"male\"", "\"male\" (a tongue) or \"female\" (a slot)");
+  t.key("type", quoted(type),
+        fmt::format("{} (a tongue) or {} (a slot)", quoted(DovetailType::Male),
+                    quoted(DovetailType::Female)));
   t.key("angle", "60", "flank to base plane, inside the void, 30 to 75");
   t.key("depth", s.depth, "base plane to top plane");
   t.key("width", s.width, "the functional width at width_at, before a gib");
-  t.key("width_at", female ? "\"top\"" : "\"bottom\"",
-        "\"bottom\" (the base plane the pins rest on)", "or \"top\" (the stock's top face)");
+  t.key("width_at", quoted(female ? WidthAt::Top : WidthAt::Bottom),
+        quoted(WidthAt::Bottom) + " (the base plane the pins rest on)",
+        "or " + quoted(WidthAt::Top) + " (the stock's top face)");
   t.key("tolerance", s.tolerance, "lower and upper limits on that width");
   t.key("chamfer", s.chamfer, "top edge break; the pins must touch below it");
-  t.optional("sides", "\"both\"", "angled flanks: \"both\", \"left\" or \"right\"");
+  t.optional("sides", quoted(AngledSides::Both), "angled flanks: " + key_list<AngledSides>("or"));
   t.optional("center", "0", "offset of the centre line from mid-stock");
   t.optional("length", "...", "along Y from the front end (default: the stock)");
-  t.optional("ends", "\"open\"", "\"open\", \"front-open\" or \"closed\"");
+  t.optional("ends", quoted(Ends::Open), key_list<Ends>("or"));
   t.optional("gib",
-             fmt::format("{{ side = \"right\", thickness = {}, taper = 0 }}", s.gib_thickness),
+             fmt::format("{{ side = {}, thickness = {}, taper = 0 }}", quoted(Side::Right),
+                         s.gib_thickness),
              "a gib on that flank", "(taper 0, or N for 1:N)");
+}
 
+void tools(TemplateText& t, const TemplateSizes& s) {
   t.blank();
   t.comment("The end mill that roughs the slot or the shoulders.");
   t.table("[[tool]]", true);
   t.key("number", "1", "T number, 1 to 9999");
-  t.key("kind", "\"end-mill\"", "\"end-mill\" or \"dovetail\"");
+  t.key("kind", quoted(ToolKind::EndMill),
+        fmt::format("{} or {}", quoted(ToolKind::EndMill), quoted(ToolKind::Dovetail)));
   t.key("diameter", s.end_mill_diameter, "cutting diameter");
   t.key("flutes", "4", "number of flutes");
   t.key("flute_length", s.end_mill_flute_length, "cutting height");
-  t.key("material", "\"carbide\"", "\"hss\" or \"carbide\"");
+  t.key("material", quoted(ToolMaterial::Carbide), key_list<ToolMaterial>("or"));
 
   t.blank();
   t.comment("The dovetail cutter; its angle must match the dovetail's.");
   t.table("[[tool]]", true);
   t.key("number", "2", "T number");
-  t.key("kind", "\"dovetail\"", "a dovetail cutter");
+  t.key("kind", quoted(ToolKind::Dovetail), "a dovetail cutter");
   t.key("diameter", s.cutter_diameter, "the large diameter, at the tip");
   t.key("flutes", "6", "number of flutes");
   t.key("flute_length", s.cutter_flute_length, "cutting height");
-  t.key("material", "\"hss\"", "\"hss\" or \"carbide\"");
+  t.key("material", quoted(ToolMaterial::Hss), key_list<ToolMaterial>("or"));
   t.key("angle", "60", "the cutter's angle, 30 to 75");
   t.key("neck_diameter", s.cutter_neck, "no larger than the small diameter");
   t.key("corner_radius", s.cutter_corner, "of the tip's edge (0: a sharp corner)");
@@ -174,25 +187,45 @@ std::string job_template(DovetailType type, Units units) {
   t.optional("rpm", "...", "overrides the computed speed, rev/min");
   t.optional("feed", "...", fmt::format("overrides the computed feed, {}", s.feed_unit),
              "(or chip_load, per tooth)");
+}
 
+void gauge_machine_strategy(TemplateText& t, const TemplateSizes& s, Units units) {
   t.table("[gauge]");
   t.key("pin_diameter", s.pin, "both measuring pins of one size");
   t.optional("pin_class", "\"ZZ\"", "the pins' class (ASME B89.1.5), for the record");
 
   t.table("[machine]");
-  t.key("kind", "\"cnc\"", "\"cnc\" or \"manual\" (a manual mill needs its",
+  t.key("kind", quoted(MachineKind::Cnc), key_list<MachineKind>("or") + " (a manual mill needs its",
         "dials too: see the README's job-file table)");
   t.key("max_rpm", "6000", "spindle limit, rev/min");
   t.key("max_feed", s.max_feed, fmt::format("feed limit, {}", s.feed_unit));
 
   t.table("[strategy]");
-  t.key("checkpoints", "[\"after-roughing\", \"before-finish\", \"after-finish\"]", "pin stops");
+  std::string checkpoints;
+  for (const auto& w : word_table(CheckpointAt{}))
+    checkpoints += fmt::format("{}\"{}\"", checkpoints.empty() ? "" : ", ", w.key);
+  t.key("checkpoints", "[" + checkpoints + "]", "pin stops");
   t.key("spring_pass", "true", "repeat the finishing pass at the same setting");
   t.key("optional_stops", "false", "true: M1 at checkpoints, where the post has it");
-  t.optional("direction", "\"climb\"", "\"climb\" or \"conventional\" (manual mills",
+  t.optional("direction", quoted(MillingMode::Climb),
+             fmt::format("{} or {} (manual mills", quoted(MillingMode::Climb),
+                         quoted(MillingMode::Conventional)),
              "always mill conventionally)");
   t.optional("finish_allowance", s.finish_allowance,
-             fmt::format("stock per flank left to finish, {}", inch ? "in" : "mm"));
+             fmt::format("stock per flank left to finish, {}", unit_symbol(units)));
+}
+
+}  // namespace
+
+std::string job_template(DovetailType type, Units units) {
+  const bool female = type == DovetailType::Female;
+  const TemplateSizes s = sizes(type, units);
+  TemplateText t;
+  intro(t, female, units);
+  part_and_stock(t, female, s);
+  dovetail(t, type, s);
+  tools(t, s);
+  gauge_machine_strategy(t, s, units);
   return t.take();
 }
 

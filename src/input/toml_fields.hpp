@@ -14,6 +14,7 @@
 #include <toml++/toml.h>
 
 #include <dovetailor/base/error.hpp>
+#include <dovetailor/base/words.hpp>
 
 namespace dovetailor::detail {
 
@@ -48,6 +49,16 @@ class TableReader {
   const toml::array* array(std::string_view key);
   // An array of tables, written [[key]] in the file; empty when absent.
   std::vector<const toml::table*> tables(std::string_view key);
+
+  // The value of an enum key, by the enum's word table (base/words.hpp);
+  // the message lists the keys.
+  template <class E>
+  std::optional<E> choice(std::string_view key) {
+    auto word = text(key);
+    if (!word) return std::nullopt;
+    if (auto value = from_key<E>(*word)) return value;
+    fail(key, "\"" + *word + "\" is not one of " + key_list<E>());
+  }
 
   // One of a fixed set of words; the message lists them.
   template <typename E>

@@ -1,12 +1,12 @@
 #include <fmt/format.h>
 
-#include <dovetailor/base/length_text.hpp>
+#include <dovetailor/base/length.hpp>
 
 #include "planner_detail.hpp"
 
 namespace dovetailor::detail {
 
-std::string PlanContext::show(double mm) const { return length_text(mm, units()); }
+std::string PlanContext::show(double mm) const { return fmt::format("{}", shown(mm, units())); }
 
 bool engages_plus_x(const PlanContext& ctx, Side side) {
   // A female's flank is outboard of the cutter; a male's flank (and the

@@ -3,16 +3,14 @@
 #include <fmt/format.h>
 #include <nlohmann/json.hpp>
 
+#include <dovetailor/base/length.hpp>
 #include <dovetailor/report/check_report.hpp>
 
 namespace dovetailor {
 namespace {
 
 // A length in the job's units, rounded two places finer than it is shown.
-double len(double mm, Units u) {
-  const double scale = std::pow(10.0, length_decimals(u) + 2);
-  return std::round(from_mm(mm, u) * scale) / scale;
-}
+double len(double mm, Units u) { return length_value(mm, u); }
 
 std::string_view side_word(Side side) { return side == Side::Left ? "left" : "right"; }
 

@@ -3,7 +3,8 @@
 
 #include <fmt/format.h>
 
-#include <dovetailor/base/length_text.hpp>
+#include <dovetailor/base/caution.hpp>
+#include <dovetailor/base/length.hpp>
 #include <dovetailor/base/text_wrap.hpp>
 #include <dovetailor/report/check_report.hpp>
 
@@ -53,7 +54,7 @@ std::string unknown_tool_text(const Finding& f) {
 }
 
 std::string cutter_overload_text(const Finding& f, Units u) {
-  const auto show = [u](double mm) { return length_text(mm, u); };
+  const auto show = [u](double mm) { return fmt::format("{}", shown(mm, u)); };
   if (f.overload == Overload::Slot)
     return fmt::format(
         "dovetail cutter T{} slots through material, engaged across its diameter: a cut {} wide "
@@ -67,7 +68,7 @@ std::string cutter_overload_text(const Finding& f, Units u) {
 }
 
 std::string reading_text(const Finding& f, Units u) {
-  const auto show = [u](double mm) { return length_text(mm, u); };
+  const auto show = [u](double mm) { return fmt::format("{}", shown(mm, u)); };
   if (f.problem)
     return fmt::format("the section cannot be read with {} pins: {}", show(f.pin_diameter),
                        measure_problem_text(*f.problem));
@@ -92,7 +93,7 @@ std::string measure_problem_text(const MeasureProblem& p) {
 
 std::string finding_text(const Finding& f, const CheckReport& r) {
   const Units u = r.units;
-  const auto show = [u](double mm) { return length_text(mm, u); };
+  const auto show = [u](double mm) { return fmt::format("{}", shown(mm, u)); };
   const auto near = [&] {
     const Point2 at = f.at.value_or(Point2{});
     return fmt::format("near x = {}, z = {}", show(at.x), show(at.z));
@@ -222,17 +223,7 @@ std::string_view end_words(EndKind end) {
   return "?";
 }
 
-std::string_view method_words(ReadingMethod m) {
-  switch (m) {
-    case ReadingMethod::OverPins:
-      return "over 2 pins";
-    case ReadingMethod::BetweenPins:
-      return "between 2 pins";
-    case ReadingMethod::SquareSideToPin:
-      return "square side to 1 pin";
-  }
-  return "?";
-}
+std::string_view method_words(ReadingMethod m) { return text_of(m); }
 
 // Writes the report, each line within 80 columns: findings carry their
 // words on indented lines below a short heading, and the sections come in
@@ -249,16 +240,12 @@ class ReportText {
       shape();
     }
     out_ += "\n";
-    para(
-        "The simulation is advice, not a guarantee: prove a new program by a dry run above the "
-        "work and in single block, secure the work and the tool, and measure with the spindle "
-        "stopped. Follow your shop's rules and the machine maker's instructions.",
-        "");
+    para(caution_paragraph(), "");
     return std::move(out_);
   }
 
  private:
-  std::string num(double mm) const { return length_number(mm, u_); }
+  std::string num(double mm) const { return fmt::format("{:n}", shown(mm, u_)); }
 
   void para(const std::string& text, const std::string& indent) {
     for (const std::string& line : wrap_words(text, 79 - indent.size()))
@@ -351,32 +338,31 @@ class ReportText {
   }
 
   void readings() {
-    const int dp = length_decimals(u_);
     const StationResult& s0 = r_.stations.front();
     out_ += "\n";
     para(fmt::format("Readings ({}), {} of {} {}; width tolerance {} to {} {}, the "
                      "target at its middle",
                      sym_, method_words(s0.target_reading.method),
                      num(s0.target_reading.pin_diameter), sym_,
-                     signed_figure(from_mm(r_.tolerance.lower, u_), dp),
-                     signed_figure(from_mm(r_.tolerance.upper, u_), dp), sym_),
+                     fmt::format("{:+n}", shown(r_.tolerance.lower, u_)),
+                     fmt::format("{:+n}", shown(r_.tolerance.upper, u_)), sym_),
          "");
     out_ += fmt::format("  {:>9} {:>10} {:>10} {:>9}\n", "y", "reading", "target", "error");
     for (const StationResult& s : r_.stations) {
       const auto& m = s.measured;
       const std::string reading = m.reading ? num(m.reading->value) : "-";
       const std::string error =
-          m.reading ? signed_figure(from_mm(m.reading->value - s.target_reading.value, u_), dp)
+          m.reading ? fmt::format("{:+n}", shown(m.reading->value - s.target_reading.value, u_))
                     : "-";
       out_ += fmt::format("  {:>9} {:>10} {:>10} {:>9}{}\n", num(s.y), reading,
                           num(s.target_reading.value), error,
                           s.reading_in_tolerance ? "" : "  out of tolerance");
     }
     if (r_.stations.size() > 1)
-      para(
-          fmt::format("reading along the slide: spread {} {}, taper {} {} per {} of length",
-                      num(r_.reading_spread), sym_, signed_figure(r_.reading_taper, 6), sym_, sym_),
-          "  ");
+      para(fmt::format("reading along the slide: spread {} {}, taper {} {} per {} of length",
+                       num(r_.reading_spread), sym_,
+                       fmt::format("{:+}", figure(r_.reading_taper, 6)), sym_, sym_),
+           "  ");
   }
 
   void shape() {

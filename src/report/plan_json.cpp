@@ -2,7 +2,8 @@
 
 #include <nlohmann/json.hpp>
 
-#include <dovetailor/base/length_text.hpp>
+#include <dovetailor/base/length.hpp>
+#include <dovetailor/job/job_words.hpp>
 #include <dovetailor/report/plan_note_text.hpp>
 #include <dovetailor/report/plan_report.hpp>
 
@@ -175,7 +176,7 @@ std::string plan_json(const Plan& plan) {
   nlohmann::json j;
   j["units"] = unit_name(u);
   j["part"] = plan.job.part.name;
-  j["type"] = plan.target.type == DovetailType::Female ? "female" : "male";
+  j["type"] = key_of(plan.target.type);
   j["angle"] = plan.target.angle;
   j["depth"] = len(plan.target.depth, u);
   j["width_bottom"] = len(plan.target.width_bottom(), u);

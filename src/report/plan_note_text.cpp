@@ -2,7 +2,7 @@
 
 #include <fmt/format.h>
 
-#include <dovetailor/base/length_text.hpp>
+#include <dovetailor/base/length.hpp>
 #include <dovetailor/report/plan_note_text.hpp>
 
 namespace dovetailor {
@@ -18,7 +18,7 @@ Overload(F...) -> Overload<F...>;
 // A mate's figures one decimal finer than the plan's lengths: they are
 // derived from a reading taken to the micrometer's last figure.
 std::string fine_length(double mm, Units units) {
-  return fmt::format("{:.{}f} {}", from_mm(mm, units), length_decimals(units) + 1,
+  return fmt::format("{} {}", fixed_text(from_mm(mm, units), length_decimals(units) + 1),
                      unit_symbol(units));
 }
 
@@ -52,15 +52,16 @@ std::string cutter_angle_text(const CutterAngleNote& n, Units u) {
       "it){}; the top-plane width comes out {} ({} at {:g} deg), and the pin readings are those "
       "of {:g} deg flanks.",
       n.tool, n.cutter_angle, std::abs(diff), diff > 0 ? "steeper" : "shallower", n.dovetail_angle,
-      n.tolerance, n.cutter_angle, length_text(n.width_bottom, u),
-      n.gib ? ", the gib's allowance taken at the cutter's angle" : "", length_text(n.width_top, u),
-      length_text(n.nominal_width_top, u), n.dovetail_angle, n.cutter_angle);
+      n.tolerance, n.cutter_angle, fmt::format("{}", shown(n.width_bottom, u)),
+      n.gib ? ", the gib's allowance taken at the cutter's angle" : "",
+      fmt::format("{}", shown(n.width_top, u)), fmt::format("{}", shown(n.nominal_width_top, u)),
+      n.dovetail_angle, n.cutter_angle);
 }
 
 }  // namespace
 
 std::string note_text(const PlanNote& note, Units u) {
-  const auto show = [u](double mm) { return length_text(mm, u); };
+  const auto show = [u](double mm) { return fmt::format("{}", shown(mm, u)); };
   return std::visit(
       Overload{
           [&](const MateNote& n) { return mate_text(n, u); },
@@ -119,7 +120,7 @@ std::string warning_text(const PlanWarning& warning, Units u) {
                 "pass {}: predicted deflection {} on the finishing pass is more than a quarter "
                 "of the tolerance; the spring pass matters, and a smaller finish allowance "
                 "would help",
-                w.pass, length_text(w.deflection, u));
+                w.pass, fmt::format("{}", shown(w.deflection, u)));
           },
           [](const NoGaugeWarning&) {
             return std::string(

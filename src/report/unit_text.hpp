@@ -10,15 +10,14 @@
 
 #include <fmt/format.h>
 
-#include <dovetailor/base/length_text.hpp>
+#include <dovetailor/base/length.hpp>
+#include <dovetailor/job/job_words.hpp>
 #include <dovetailor/plan/plan.hpp>
 
 namespace dovetailor::detail {
 
 struct UnitText {
   Units u;
-  std::string num(double mm) const { return length_number(mm, u); }
-  std::string len(double mm) const { return length_text(mm, u); }
   // Feeds: 0.1 in/min, or whole mm/min.
   std::string feed(double mm_per_min) const {
     return u == Units::Inch ? fmt::format("{:.1f}", from_mm(mm_per_min, u))
@@ -94,22 +93,11 @@ inline std::string role_name(PassRole r) {
 
 // The flank a pass works toward: "left", "right", or "centre".
 inline std::string side_name(std::optional<Side> s) {
-  if (!s) return "centre";
-  return *s == Side::Left ? "left" : "right";
+  return s ? std::string(text_of(*s)) : "centre";
 }
 
 // How the reading is taken: "over 2 pins", "between 2 pins", ...
-inline std::string method_words(const PinReading& r) {
-  switch (r.method) {
-    case ReadingMethod::OverPins:
-      return "over 2 pins";
-    case ReadingMethod::BetweenPins:
-      return "between 2 pins";
-    case ReadingMethod::SquareSideToPin:
-      return "from the square side to 1 pin";
-  }
-  return "";
-}
+inline std::string method_words(const PinReading& r) { return std::string(text_of(r.method)); }
 
 // For a checkpoint on a tapered gib, where its readings hold and how they
 // change along the slide (Checkpoint::reading_per_length); empty without a
@@ -124,8 +112,8 @@ inline std::string taper_words(const Checkpoint& c, double back_y, const UnitTex
       "Tapered gib: these readings hold at the front end, y = {}. Toward the back the reading "
       "{} {} of y ({} at the back end, y = {}); measured at y, compare it with the expected "
       "reading {} {} x y.",
-      s.len(c.reading_at_y), rate > 0 ? "grows" : "drops", per(rate),
-      s.len(c.expected.value + rate * (back_y - c.reading_at_y)), s.len(back_y),
+      shown(c.reading_at_y, s.u), rate > 0 ? "grows" : "drops", per(rate),
+      shown(c.expected.value + rate * (back_y - c.reading_at_y), s.u), shown(back_y, s.u),
       rate > 0 ? "plus" : "less", fmt::format("{:.6f}", std::abs(rate)));
   if (c.reference_reading)
     text += c.reference_per_length == 0

@@ -24,7 +24,7 @@ class MaterialReader {
 
   MaterialTable read() {
     TableReader top(root_, "", file_);
-    auto units = top.choice<Units>("units", {{"inch", Units::Inch}, {"mm", Units::Millimetre}});
+    auto units = top.choice<Units>("units");
     if (!units)
       top.fail("units",
                "missing; write units = \"inch\" (ft/min and inches) or units = \"mm\" "

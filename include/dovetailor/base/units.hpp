@@ -1,6 +1,9 @@
 #pragma once
 
+#include <array>
 #include <string_view>
+
+#include <dovetailor/base/words.hpp>
 
 namespace dovetailor {
 
@@ -22,11 +25,17 @@ constexpr double from_mm(double mm, Units units) {
   return units == Units::Inch ? mm / mm_per_inch : mm;
 }
 
+// Keys "inch" and "mm" (job files, flags, JSON); texts "in" and "mm", the
+// symbols printed beside numbers.
+constexpr std::array<EnumWord<Units>, 2> word_table(Units) {
+  return {{{Units::Inch, "inch", "in"}, {Units::Millimetre, "mm"}}};
+}
+
 // "in" or "mm": the symbol printed beside numbers.
-constexpr std::string_view unit_symbol(Units units) { return units == Units::Inch ? "in" : "mm"; }
+constexpr std::string_view unit_symbol(Units units) { return text_of(units); }
 
 // "inch" or "mm": the spelling used in job files.
-constexpr std::string_view unit_name(Units units) { return units == Units::Inch ? "inch" : "mm"; }
+constexpr std::string_view unit_name(Units units) { return key_of(units); }
 
 // Decimal places that a length in `units` is shown with: 4 for inch (0.0001 in),
 // 3 for mm (0.001 mm), the usual resolution of a micrometer (common practice).

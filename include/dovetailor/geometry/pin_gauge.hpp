@@ -1,9 +1,11 @@
 #pragma once
 
+#include <array>
 #include <optional>
 #include <string>
 #include <vector>
 
+#include <dovetailor/base/words.hpp>
 #include <dovetailor/geometry/dovetail_section.hpp>
 
 namespace dovetailor {
@@ -28,6 +30,14 @@ enum class ReadingMethod {
   BetweenPins,      // female, both flanks angled: inside measurement between two pins
   SquareSideToPin,  // one flank angled: from the square flank to one pin
 };
+
+// Keys for JSON ("over-pins"), words for reports ("over 2 pins").
+constexpr std::array<EnumWord<ReadingMethod>, 3> word_table(ReadingMethod) {
+  return {
+      {{ReadingMethod::OverPins, "over-pins", "over 2 pins"},
+       {ReadingMethod::BetweenPins, "between-pins", "between 2 pins"},
+       {ReadingMethod::SquareSideToPin, "square-side-to-pin", "from the square side to 1 pin"}}};
+}
 
 struct PinReading {
   ReadingMethod method = ReadingMethod::OverPins;
