@@ -103,21 +103,21 @@ std::string correction_rule(const Plan& plan, const Checkpoint& c) {
   return rule;
 }
 
-std::string format_plan(const Plan& plan) {
+namespace {
+
+// Title, the target section and the final reading.
+std::string target_lines(const Plan& plan, const Show& s) {
   const Job& job = plan.job;
-  const Show s{job.units};
   const auto& t = plan.target;
-  const bool female = t.type == DovetailType::Female;
-  std::string out;
-  const auto line = [&](const std::string& text) { out += text + "\n"; };
-  line(fmt::format("Cutting plan: {}", job.part.name.empty() ? job.source : job.part.name));
+  std::string out =
+      fmt::format("Cutting plan: {}\n", job.part.name.empty() ? job.source : job.part.name);
   out += wrap(fmt::format("{} dovetail {:g} deg, {} angled, depth {}; all lengths in {}.",
-                          female ? "Female" : "Male", t.angle,
+                          t.type == DovetailType::Female ? "Female" : "Male", t.angle,
                           t.angled_flanks() == 2 ? "both flanks" : "one flank", shown(t.depth, s.u),
                           unit_name(job.units)),
               "", "");
-  line(fmt::format("Width as cut: {} at the base plane, {} at the top plane.",
-                   shown(t.width_bottom(), s.u), shown(t.width_top(), s.u)));
+  out += fmt::format("Width as cut: {} at the base plane, {} at the top plane.\n",
+                     shown(t.width_bottom(), s.u), shown(t.width_top(), s.u));
   if (job.gauge)
     out += wrap(
         fmt::format("Final reading {} of {}: {} (good from {:n} to {}).",
@@ -125,37 +125,100 @@ std::string format_plan(const Plan& plan) {
                     shown(plan.final_reading.value, s.u), shown(final_reading_band(plan).low, s.u),
                     shown(final_reading_band(plan).high, s.u)),
         "", "");
-  line("");
-  out += safety_cautions();
-  line("");
-  line("Tools");
-  for (const auto& tool : job.tools) {
+  return out;
+}
+
+std::string tool_list(const Plan& plan, const Show& s) {
+  std::string out = "Tools\n";
+  for (const auto& tool : plan.job.tools) {
     const auto passes = detail::passes_of_tool(plan, tool.number);
-    if (!passes.empty()) line(tool_line(tool, passes, s));
+    if (!passes.empty()) out += tool_line(tool, passes, s) + "\n";
   }
-  int op_number = 0;
-  for (const auto& op : plan.operations) {
-    line("");
-    line(fmt::format("Operation {}: {} with T{}", ++op_number, operation_title(op), op.tool));
-    out += wrap(fmt::format("Entry: {}.", entry_words(op, job.dovetail.ends)), "  ", "    ");
-    line(fmt::format("  {:>4} {:<6} {:<6} {:>8} {:>8} {:>7} {:>7} {:>6} {:<5} {:>7}", "Pass",
-                     "Role", "Side", "X", "Z", "Step", "Left", "Feed", "Mode", "Bend"));
-    for (const auto& p : op.passes) {
-      line(fmt::format("  {:>4} {:<6} {:<6} {:>8} {:>8n} {:>7n} {:>7n} {:>6} {:<5} {:>7}", p.number,
-                       role_name(p.role), side_name(p.side),
+  return out;
+}
+
+// One operation: its title, how the tool enters and its pass table, with a
+// STOP line after each pass a checkpoint follows.
+std::string pass_table(const Plan& plan, const Operation& op, int number, const Show& s) {
+  std::string out =
+      fmt::format("Operation {}: {} with T{}\n", number, operation_title(op), op.tool);
+  out += wrap(fmt::format("Entry: {}.", entry_words(op, plan.job.dovetail.ends)), "  ", "    ");
+  out += fmt::format("  {:>4} {:<6} {:<6} {:>8} {:>8} {:>7} {:>7} {:>6} {:<5} {:>7}\n", "Pass",
+                     "Role", "Side", "X", "Z", "Step", "Left", "Feed", "Mode", "Bend");
+  bool taper = false;
+  for (const auto& p : op.passes) {
+    out += fmt::format("  {:>4} {:<6} {:<6} {:>8} {:>8n} {:>7n} {:>7n} {:>6} {:<5} {:>7}\n",
+                       p.number, role_name(p.role), side_name(p.side),
                        fmt::format("{:n}", shown(p.x, s.u)) + (p.taper_slope != 0 ? "*" : ""),
                        shown(p.z, s.u), shown(p.radial_step, s.u), shown(p.stock_left, s.u),
                        s.feed(p.feed), mode_name(p.mode),
-                       p.deflection > 0 ? fmt::format("{:n}", shown(p.deflection, s.u)) : "-"));
-      for (const auto& c : plan.checkpoints)
-        if (c.after_pass == p.number)
-          line(fmt::format("  ---- STOP: checkpoint \"{}\" (see below) ----", c.name));
-    }
-    bool taper = false;
-    for (const auto& p : op.passes) taper = taper || p.taper_slope != 0;
-    if (taper) line("  * X at the front end; the pass runs at the gib's taper along Y.");
+                       p.deflection > 0 ? fmt::format("{:n}", shown(p.deflection, s.u)) : "-");
+    for (const auto& c : plan.checkpoints)
+      if (c.after_pass == p.number)
+        out += fmt::format("  ---- STOP: checkpoint \"{}\" (see below) ----\n", c.name);
+    taper = taper || p.taper_slope != 0;
   }
-  line("");
+  if (taper) out += "  * X at the front end; the pass runs at the gib's taper along Y.\n";
+  return out;
+}
+
+// One checkpoint: how to measure, the reading to expect, the stock left and
+// the correction rule.
+std::string checkpoint_section(const Plan& plan, const Checkpoint& c, char letter, const Show& s) {
+  const Job& job = plan.job;
+  std::string out =
+      fmt::format("Checkpoint {}: {} (after pass {})\n", letter, c.name, c.after_pass);
+  out += "  Stop the spindle, clear the chips, deburr the edges the pins touch.\n";
+  if (job.gauge) {
+    out += wrap(fmt::format("Measure {} of {}: expect {} (final {}).", method_words(c.expected),
+                            shown(job.gauge->pin_diameter, s.u), shown(c.expected.value, s.u),
+                            shown(c.final_reading.value, s.u)),
+                "  ", "  ");
+    if (c.reference_reading)
+      out += fmt::format("  Or with one pin on the right flank, from the left stock face: {}.\n",
+                         shown(*c.reference_reading, s.u));
+  }
+  out += fmt::format("  Stock left on {}: {} laterally ({} square to the flank).\n",
+                     plan.target.angled_flanks() == 2 ? "each flank" : "the flank",
+                     shown(c.remaining_per_flank, s.u), shown(c.remaining_normal, s.u));
+  out += fmt::format("  Depth from the top face: {}.\n", shown(c.expected_depth, s.u));
+  if (job.gauge) {
+    out += wrap(correction_rule(plan, c), "  ", "  ");
+    const std::string taper = detail::taper_words(c, job.dovetail.length, s);
+    if (!taper.empty()) out += wrap(taper, "  ", "  ");
+  }
+  return out;
+}
+
+// The notes, then the warnings, each under its heading; nothing when empty.
+std::string notes_and_warnings(const Plan& plan) {
+  std::string out;
+  if (!plan.notes.empty()) {
+    out += "\nNotes\n";
+    for (const auto& n : note_texts(plan)) out += wrap(n, "  - ", "    ");
+  }
+  if (!plan.warnings.empty()) {
+    out += "\nWarnings\n";
+    for (const auto& w : warning_texts(plan)) out += wrap(w, "  ! ", "    ");
+  }
+  return out;
+}
+
+}  // namespace
+
+std::string format_plan(const Plan& plan) {
+  const Show s{plan.job.units};
+  std::string out = target_lines(plan, s);
+  out += '\n';
+  out += safety_cautions();
+  out += '\n';
+  out += tool_list(plan, s);
+  int op_number = 0;
+  for (const auto& op : plan.operations) {
+    out += '\n';
+    out += pass_table(plan, op, ++op_number, s);
+  }
+  out += '\n';
   out += wrap(fmt::format("X: tool axis; Z: tool tip; Step: new radial engagement; Left: "
                           "stock left on that flank or wall; Feed in {}; Bend: predicted cutter "
                           "deflection.",
@@ -163,39 +226,10 @@ std::string format_plan(const Plan& plan) {
               "  ", "  ");
   int letter = 0;
   for (const auto& c : plan.checkpoints) {
-    line("");
-    line(fmt::format("Checkpoint {}: {} (after pass {})", static_cast<char>('A' + letter++), c.name,
-                     c.after_pass));
-    line("  Stop the spindle, clear the chips, deburr the edges the pins touch.");
-    if (job.gauge) {
-      out += wrap(fmt::format("Measure {} of {}: expect {} (final {}).", method_words(c.expected),
-                              shown(job.gauge->pin_diameter, s.u), shown(c.expected.value, s.u),
-                              shown(c.final_reading.value, s.u)),
-                  "  ", "  ");
-      if (c.reference_reading)
-        line(fmt::format("  Or with one pin on the right flank, from the left stock face: {}.",
-                         shown(*c.reference_reading, s.u)));
-    }
-    line(fmt::format("  Stock left on {}: {} laterally ({} square to the flank).",
-                     t.angled_flanks() == 2 ? "each flank" : "the flank",
-                     shown(c.remaining_per_flank, s.u), shown(c.remaining_normal, s.u)));
-    line(fmt::format("  Depth from the top face: {}.", shown(c.expected_depth, s.u)));
-    if (job.gauge) {
-      out += wrap(correction_rule(plan, c), "  ", "  ");
-      const std::string taper = detail::taper_words(c, job.dovetail.length, s);
-      if (!taper.empty()) out += wrap(taper, "  ", "  ");
-    }
+    out += '\n';
+    out += checkpoint_section(plan, c, static_cast<char>('A' + letter++), s);
   }
-  if (!plan.notes.empty()) {
-    line("");
-    line("Notes");
-    for (const auto& n : note_texts(plan)) out += wrap(n, "  - ", "    ");
-  }
-  if (!plan.warnings.empty()) {
-    line("");
-    line("Warnings");
-    for (const auto& w : warning_texts(plan)) out += wrap(w, "  ! ", "    ");
-  }
+  out += notes_and_warnings(plan);
   return out;
 }
 
