@@ -11,6 +11,8 @@
 #include <dovetailor/geometry/pin_gauge.hpp>
 #include <dovetailor/input/job_reader.hpp>
 #include <dovetailor/job/job_words.hpp>
+#include <dovetailor/plan/plan.hpp>
+#include <dovetailor/rs274/rs274_events.hpp>
 
 #include "test_support.hpp"
 
@@ -59,6 +61,8 @@ TEST(words, every_file_key_round_trips) {
   expect_round_trip<Severity>(2);
   expect_round_trip<ToolWord>(5);
   expect_round_trip<Overload>(2);
+  expect_round_trip<PassRole>(4);
+  expect_round_trip<EndKind>(4);
 }
 
 TEST(words, unknown_key_reads_as_nothing) {

@@ -186,8 +186,7 @@ class Writer {
   }
 
   void write_pass(const Operation& op, const Pass& pass) {
-    const std::string_view role =
-        pass.role == PassRole::Spring ? "spring pass" : pass_role_word(pass.role);
+    const std::string_view role = pass.role == PassRole::Spring ? "spring pass" : key_of(pass.role);
     comment(fmt::format("pass {}: {}{}, stock left {}", pass.number, role,
                         pass.side ? (*pass.side == Side::Left ? ", left" : ", right") : ", centre",
                         shown(pass.stock_left, units_)));

@@ -198,20 +198,6 @@ int last_pass_of(const Operation& op, PassRole role) {
 
 }  // namespace
 
-std::string_view pass_role_word(PassRole role) {
-  switch (role) {
-    case PassRole::Rough:
-      return "rough";
-    case PassRole::SemiFinish:
-      return "semi-finish";
-    case PassRole::Finish:
-      return "finish";
-    case PassRole::Spring:
-      return "spring";
-  }
-  return "";
-}
-
 ReadingBand final_reading_band(const Plan& plan) {
   const Tolerance& tol = plan.job.dovetail.tolerance;
   const double nominal = plan.final_reading.value - band_middle(tol);

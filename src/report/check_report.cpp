@@ -209,20 +209,6 @@ std::vector<FindingGroup> group_findings(const std::vector<Finding>& findings) {
 
 namespace {
 
-std::string_view end_words(EndKind end) {
-  switch (end) {
-    case EndKind::M2:
-      return "M2";
-    case EndKind::M30:
-      return "M30";
-    case EndKind::Percent:
-      return "'%'";
-    case EndKind::EndOfInput:
-      return "the end of the file (no M2, M30 or '%')";
-  }
-  return "?";
-}
-
 std::string_view method_words(ReadingMethod m) { return text_of(m); }
 
 // Writes the report, each line within 80 columns: findings carry their
@@ -255,7 +241,7 @@ class ReportText {
   void head() {
     out_ += fmt::format("Check of {}: {}\n", r_.program, r_.has_errors() ? "FAIL" : "PASS");
     para(fmt::format("{} lines read, {} moves simulated, {} stations; the program ended at {}.",
-                     r_.lines, r_.moves, r_.stations.size(), end_words(r_.end)),
+                     r_.lines, r_.moves, r_.stations.size(), text_of(r_.end)),
          "");
     const ProgramSetup& p = r_.setup;
     if (p.zero != Point3{} || p.slide != SlideAxis::PlusY)

@@ -37,7 +37,7 @@ nlohmann::json pass_json(const Pass& p, Units u) {
   nlohmann::json q;
   q["number"] = p.number;
   q["tool"] = p.tool;
-  q["role"] = std::string(pass_role_word(p.role));
+  q["role"] = std::string(key_of(p.role));
   q["side"] = p.side ? (*p.side == Side::Left ? "left" : "right") : "centre";
   q["x"] = len(p.x, u);
   q["taper_slope"] = p.taper_slope;

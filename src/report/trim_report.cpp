@@ -69,7 +69,7 @@ std::string corrective_passes(const Plan& plan, const Trim& t) {
                      "Z", "Step", "Left");
   for (const auto& p : t.passes.operations.front().passes)
     out += fmt::format("  {:>4} {:<11} {:<12} {:>9} {:>9n} {:>8n} {:>8n}\n", p.number,
-                       pass_role_word(p.role), side_words(*p.side),
+                       key_of(p.role), side_words(*p.side),
                        fmt::format("{:n}", shown(p.x, u)) + (p.taper_slope != 0 ? "*" : ""),
                        shown(p.z, u), shown(p.radial_step, u), shown(p.stock_left, u));
   out +=
@@ -207,7 +207,7 @@ std::string trim_sheet(const Plan& plan, const Trim& t) {
             : fmt::format("move {} {}, {} the flank", shown(std::abs(move), u),
                           move > 0 ? "+X" : "-X", move * toward > 0 ? "toward" : "away from");
     out += wrapped(fmt::format("{}. {}, {}: set X {:n} ({}), Z {:n}; feed {}.", p.number,
-                               pass_role_word(p.role), side_words(*p.side), shown(p.x, u), how,
+                               key_of(p.role), side_words(*p.side), shown(p.x, u), how,
                                shown(p.z, u), travel_words(p)));
     it->second = p.x;
   }

@@ -87,9 +87,7 @@ std::string feed_words(const PassFeeds& f, Num num, const std::string& unit) {
 }
 
 // A pass's role for a table column: "rough", "semi", "finish", "spring".
-inline std::string role_name(PassRole r) {
-  return r == PassRole::SemiFinish ? "semi" : std::string(pass_role_word(r));
-}
+inline std::string role_name(PassRole r) { return std::string(text_of(r)); }
 
 // The flank a pass works toward: "left", "right", or "centre".
 inline std::string side_name(std::optional<Side> s) {

@@ -1,11 +1,13 @@
 #pragma once
 
+#include <array>
 #include <optional>
 #include <string>
 #include <string_view>
 #include <vector>
 
 #include <dovetailor/base/point.hpp>
+#include <dovetailor/base/words.hpp>
 #include <dovetailor/geometry/dovetail_section.hpp>
 #include <dovetailor/geometry/pin_gauge.hpp>
 #include <dovetailor/job/job.hpp>
@@ -39,9 +41,15 @@ enum class PassRole {
   Spring,      // same position again, no added stock: takes out the spring of the cutter
 };
 
-// The role in one word, as the JSON plan and the program comments give it:
-// "rough", "semi-finish", "finish", "spring".
-std::string_view pass_role_word(PassRole role);
+// The role's words: the key is the word the JSON plan, the program comments
+// and the trim report give ("rough", "semi-finish", "finish", "spring"); the
+// text is the short word of the pass tables ("semi").
+constexpr std::array<EnumWord<PassRole>, 4> word_table(PassRole) {
+  return {{{PassRole::Rough, "rough"},
+           {PassRole::SemiFinish, "semi-finish", "semi"},
+           {PassRole::Finish, "finish"},
+           {PassRole::Spring, "spring"}}};
+}
 
 // One cut along the slide (Y). `x` is the tool axis at y = 0 (for a tapered
 // gib flank the axis runs at the taper: x_at(y) = x + taper_slope * y); `z` is

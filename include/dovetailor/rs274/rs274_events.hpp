@@ -1,5 +1,6 @@
 #pragma once
 
+#include <array>
 #include <optional>
 #include <variant>
 #include <vector>
@@ -7,6 +8,7 @@
 #include <dovetailor/base/arc.hpp>
 #include <dovetailor/base/point.hpp>
 #include <dovetailor/base/units.hpp>
+#include <dovetailor/base/words.hpp>
 
 namespace dovetailor {
 
@@ -86,6 +88,13 @@ struct MissingTool {
 // How the program ended: M2, M30, a closing '%' line, or the input ran out
 // without any of them (a checker may warn about that).
 enum class EndKind { M2, M30, Percent, EndOfInput };
+// Keys for JSON; texts for the check report ("... ended at M30").
+constexpr std::array<EnumWord<EndKind>, 4> word_table(EndKind) {
+  return {{{EndKind::M2, "m2", "M2"},
+           {EndKind::M30, "m30", "M30"},
+           {EndKind::Percent, "percent", "'%'"},
+           {EndKind::EndOfInput, "end_of_input", "the end of the file (no M2, M30 or '%')"}}};
+}
 struct ProgramEnd {
   EndKind how = EndKind::M2;
   bool operator==(const ProgramEnd&) const = default;
