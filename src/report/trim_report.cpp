@@ -132,7 +132,9 @@ std::string depth_text(const Plan& plan, const Trim& t) {
         "{} deep, more than the {} allowed. This cannot be undone: the trim passes keep the "
         "planned Z; check the tool length before cutting on.",
         shown(d.error(), u), shown(d.tolerance, u));
-  return "\n" + wrapped(line);
+  std::string out = "\n";
+  out += wrapped(line);
+  return out;
 }
 
 // The same correction in the full program (wear offset or parameters), for
@@ -170,14 +172,19 @@ std::string full_program_text(const Plan& plan, const Trim& t, SizingStyle style
       break;
   }
   if (std::abs(t.offset_change) <= 1e-9 && style != SizingStyle::Plain) return {};
-  return "\n" + wrapped(line);
+  std::string out = "\n";
+  out += wrapped(line);
+  return out;
 }
 
 }  // namespace
 
 std::string format_trim(const Plan& plan, const Trim& t, SizingStyle style) {
-  return reading_text(plan, t) + verdict_text(plan, t) + depth_text(plan, t) +
-         full_program_text(plan, t, style);
+  std::string out = reading_text(plan, t);
+  out += verdict_text(plan, t);
+  out += depth_text(plan, t);
+  out += full_program_text(plan, t, style);
+  return out;
 }
 
 std::string trim_sheet(const Plan& plan, const Trim& t) {

@@ -51,7 +51,13 @@ std::string key_list(std::string_view last = {}) {
   std::string out;
   const auto table = word_table(E{});
   for (std::size_t i = 0; i < table.size(); ++i) {
-    if (i > 0) out += !last.empty() && i + 1 == table.size() ? " " + std::string(last) + " " : ", ";
+    if (i > 0 && !last.empty() && i + 1 == table.size()) {
+      out += ' ';
+      out += last;
+      out += ' ';
+    } else if (i > 0) {
+      out += ", ";
+    }
     out += '"';
     out += table[i].key;
     out += '"';
