@@ -5,6 +5,7 @@
 #include <fmt/format.h>
 
 #include <dovetailor/base/error.hpp>
+#include <dovetailor/base/length.hpp>
 #include <dovetailor/gcode/gcode_block.hpp>
 
 namespace dovetailor {
@@ -271,10 +272,10 @@ class BlockNumbers {
 
 std::string format_number(double value, int decimals) {
   require(std::isfinite(value), "number is not finite");
-  std::string text = fmt::format("{:.{}f}", value, decimals);
+  // fixed_text drops the sign of a value that rounds to zero ("-0.000").
+  std::string text = fixed_text(value, decimals, false);
   if (text.find('.') == std::string::npos) text += '.';
   while (text.back() == '0') text.pop_back();
-  if (text == "-0.") text = "0.";
   return text;
 }
 

@@ -209,8 +209,6 @@ std::vector<FindingGroup> group_findings(const std::vector<Finding>& findings) {
 
 namespace {
 
-std::string_view method_words(ReadingMethod m) { return text_of(m); }
-
 // Writes the report, each line within 80 columns: findings carry their
 // words on indented lines below a short heading, and the sections come in
 // two tables (the readings, then the shape).
@@ -328,9 +326,8 @@ class ReportText {
     out_ += "\n";
     para(fmt::format("Readings ({}), {} of {} {}; width tolerance {} to {} {}, the "
                      "target at its middle",
-                     sym_, method_words(s0.target_reading.method),
-                     num(s0.target_reading.pin_diameter), sym_,
-                     fmt::format("{:+n}", shown(r_.tolerance.lower, u_)),
+                     sym_, text_of(s0.target_reading.method), num(s0.target_reading.pin_diameter),
+                     sym_, fmt::format("{:+n}", shown(r_.tolerance.lower, u_)),
                      fmt::format("{:+n}", shown(r_.tolerance.upper, u_)), sym_),
          "");
     out_ += fmt::format("  {:>9} {:>10} {:>10} {:>9}\n", "y", "reading", "target", "error");
