@@ -294,7 +294,10 @@ std::string format_block(const Block& block, const Post& post, Units units, long
   const std::string comment = clean_comment(block.comment);
   std::string prefix = numbers.next();
   std::string one_line = prefix + body;
-  if (!comment.empty()) one_line += (body.empty() ? "" : " ") + comment_text(comment, post);
+  if (!comment.empty()) {
+    if (!body.empty()) one_line += ' ';
+    one_line += comment_text(comment, post);
+  }
   if (one_line.size() <= max) return one_line;
 
   // Too long: the comment goes on its own lines, then the words.
